@@ -1,0 +1,38 @@
+// https://nuxt.com/docs/api/configuration/nuxt-config
+export default defineNuxtConfig({
+  compatibilityDate: '2026-11-01',
+  devtools: { enabled: false },
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
+  css: [
+    '@fontsource/space-grotesk/400.css',
+    '@fontsource/space-grotesk/500.css',
+    '@fontsource/space-grotesk/700.css',
+    '~/assets/css/main.css',
+  ],
+  app: {
+    head: {
+      title: 'Wingfold',
+      htmlAttrs: { lang: 'en' },
+      meta: [{ name: 'description', content: 'Check gluing patterns, follow their balanced families, keep them as verified runs.' }],
+    },
+  },
+  runtimeConfig: {
+    databaseUrl: 'file:./data/wingfold.db',
+    migrationsDir: '',
+    allowSignup: true,
+    seedDemo: true,
+    smtpUrl: '',
+    mailFrom: 'Wingfold <no-reply@wingfold.local>',
+    public: {
+      appVersion: '0.1.0',
+      baseUrl: 'http://localhost:3000',
+    },
+  },
+  vite: {
+    worker: { format: 'es' },
+    optimizeDeps: {
+      include: ['comlink', 'echarts/core', 'echarts/charts', 'echarts/components', 'echarts/renderers', 'vue-echarts', 'mathjs', 'ml-matrix', 'zod'],
+    },
+  },
+  typescript: { strict: true },
+})
