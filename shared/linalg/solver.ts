@@ -1,0 +1,94 @@
+/**
+ * Factor-once / solve-many front end: compresses triplets, orders, analyses and factorises,
+ * reusing the compressed pattern, ordering and symbolic LDLᵀ for every later matrix with the
+ * same triplet pattern (the usual case along a continuation run).
+ *
+ * Method choice ('auto'): symmetric → LDLᵀ; when LDLᵀ meets a zero pivot → sparse LU;
+ * unsymmetric → sparse LU; n ≤ denseBelow → dense ml-matrix LU.
+ */
+import { CscPattern, symmetricAdjacency } from './csc'
+import { DenseFactor, tripletsToDense } from './dense'
+import { LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
+import { LuFactor, luFactor } from './lu'
+import { naturalOrdering, nestedDissection } from './ordering'
+import type { Triplets } from './triplets'
+
+/** Any factorisation made here. */
+export type Factorization = LdltFactor | LuFactor | DenseFactor
+
+/** Options of {@link SparseSolver}. */
+export interface SolverOptions {
+  /** 'auto' (default), 'ldlt', 'lu' or 'dense'. */
+  method?: 'auto' | 'ldlt' | 'lu' | 'dense'
+  /** Use dense ml-matrix when n ≤ this. Default 0 (always sparse: LDLᵀ inertia is exact pivot signs). */
+  denseBelow?: number
+  /** 'nested-dissection' (default) or 'natural'. */
+  ordering?: 'nested-dissection' | 'natural'
+  /** Leaf size of the nested dissection. Default 64. */
+  leafSize?: number
+  /** LU threshold for keeping the diagonal pivot. Default 0.1. */
+  pivotTolerance?: number
+}
+
+/** Defaults of {@link SolverOptions}. */
+export const SOLVER_DEFAULTS: Required<SolverOptions> = {
+  method: 'auto', denseBelow: 0, ordering: 'nested-dissection', leafSize: 64, pivotTolerance: 0.1,
+}
+
+/** Fill defaults and reject nonsense. */
+export function validateSolverOptions(o: SolverOptions = {}): Required<SolverOptions> {
+  const r = { ...SOLVER_DEFAULTS, ...o }
+  if (!['auto', 'ldlt', 'lu', 'dense'].includes(r.method)) throw new Error(`solver: unknown method '${r.method}'`)
+  if (!['nested-dissection', 'natural'].includes(r.ordering)) throw new Error(`solver: unknown ordering '${r.ordering}'`)
+  if (!(Number.isInteger(r.denseBelow) && r.denseBelow >= 0)) throw new Error('solver: denseBelow must be an integer ≥ 0')
+  if (!(Number.isInteger(r.leafSize) && r.leafSize >= 1)) throw new Error('solver: leafSize must be an integer ≥ 1')
+  if (!(r.pivotTolerance > 0 && r.pivotTolerance <= 1)) throw new Error('solver: pivotTolerance must be in (0, 1]')
+  return r
+}
+
+/** Outcome of {@link SparseSolver.factor}: a factorisation, or the reason there is none. */
+export type FactorOutcome =
+  | { ok: true; factor: Factorization; inertia?: Inertia }
+  | { ok: false; reason: string }
+
+/** Factorises matrices, caching pattern-only work between calls with the same triplet pattern. */
+export class SparseSolver {
+  readonly options: Required<SolverOptions>
+  private pattern?: CscPattern
+  private perm?: Int32Array
+  private symbolic?: LdltSymbolic
+  /** Number of times the pattern analysis (compression + ordering) was (re)done. */
+  analyses = 0
+
+  constructor(options: SolverOptions = {}) { this.options = validateSolverOptions(options) }
+
+  /** Factorise the square matrix given by `t`; `symmetric` says A = Aᵀ (enables LDLᵀ and inertia). */
+  factor(t: Triplets, symmetric: boolean): FactorOutcome {
+    if (t.nRows !== t.nCols) throw new Error(`solver: matrix must be square, got ${t.nRows}×${t.nCols}`)
+    const o = this.options
+    if (o.method === 'dense' || t.nRows <= o.denseBelow) {
+      const f = new DenseFactor(tripletsToDense(t), symmetric)
+      if (f.singular) return { ok: false, reason: 'singular (dense LU has a zero pivot)' }
+      return { ok: true, factor: f, inertia: f.inertia }
+    }
+    if (!this.pattern || !this.pattern.matches(t)) {
+      this.pattern = new CscPattern(t.nRows, t.nCols, t)
+      const { ptr, adj } = symmetricAdjacency(this.pattern)
+      this.perm = o.ordering === 'natural' ? naturalOrdering(t.nRows) : nestedDissection(ptr, adj, { leafSize: o.leafSize })
+      this.symbolic = undefined
+      this.analyses++
+    }
+    const A = this.pattern.fill(t)
+    let ldltReason = ''
+    if (symmetric && o.method !== 'lu') {
+      this.symbolic ??= new LdltSymbolic(this.pattern, this.perm!)
+      const r = ldltFactor(A, this.symbolic)
+      if (r.ok) return { ok: true, factor: r.factor, inertia: r.factor.inertia }
+      ldltReason = `LDLᵀ: ${r.reason}; `
+      if (o.method === 'ldlt') return { ok: false, reason: ldltReason }
+    }
+    const r = luFactor(A, this.perm!, { pivotTolerance: o.pivotTolerance })
+    if (!r.ok) return { ok: false, reason: `${ldltReason}LU: ${r.reason}` }
+    return { ok: true, factor: r.factor }
+  }
+}
