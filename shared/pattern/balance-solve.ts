@@ -1,0 +1,149 @@
+/**
+ * Balance solve: turns a rough drawing into a balanced one (B = 0, domain.md §4) by damped
+ * Newton on the positions (see ./newton.ts). The first vertex is pinned (translations); in the
+ * plane the scale is fixed too, by keeping the projection of the first non-loop edge on its
+ * starting direction (B is invariant under dilation). The lattice and the wings stay fixed.
+ * Steps are accepted when ‖B‖ or the total length L decreases: L is convex in p (a sum of norms
+ * of affine maps minus a linear term), so the balanced drawings are its minima and the damped
+ * Newton iteration on ∇L = −B with an L line search converges from any start that does not
+ * collapse an edge (Dennis–Schnabel 1983, Thm 6.3.3).
+ */
+import type { PatternDocument } from '../types/pattern'
+import { balanceJacobian, balanceResidual } from './balance'
+import { edgeLengths, lengthFunctional, meanEdgeLength } from './geometry'
+import type { Lattice, PatternModel } from './model'
+import { compilePattern } from './model'
+import { dampedNewton } from './newton'
+import { tripletsToDense } from './spectrum'
+
+/** Options of the balance solve. */
+export interface BalanceOptions {
+  /** Newton iterations at most (default 60). */
+  maxIterations?: number
+  /** Converged when ‖B‖₂ ≤ tolerance (B is a sum of unit vectors: dimensionless; default 1e-10). */
+  tolerance?: number
+  /** Reject steps that shrink an edge below this fraction of the mean length (default 1e-8). */
+  collapseFraction?: number
+}
+
+export const DEFAULT_BALANCE_OPTIONS: Required<BalanceOptions> = {
+  maxIterations: 60,
+  tolerance: 1e-10,
+  collapseFraction: 1e-8,
+}
+
+/** Fills defaults and rejects nonsense. */
+export function resolveBalanceOptions(o: BalanceOptions = {}): Required<BalanceOptions> {
+  const r = { ...DEFAULT_BALANCE_OPTIONS, ...o }
+  if (!(Number.isInteger(r.maxIterations) && r.maxIterations >= 0)) throw new Error('maxIterations must be an integer ≥ 0')
+  if (!(r.tolerance > 0)) throw new Error('tolerance must be positive')
+  if (!(r.collapseFraction > 0 && r.collapseFraction < 1)) throw new Error('collapseFraction must lie in (0, 1)')
+  return r
+}
+
+/** Result on the model level: positions (2V) of the final drawing. */
+export interface BalanceSolveResult {
+  converged: boolean
+  iterations: number
+  residualNorm: number
+  positions: Float64Array
+  reason?: string
+}
+
+/** Sum of the open wings' unit directions (must vanish for a balanced plane pattern). */
+export function openWingSum(m: PatternModel): [number, number] {
+  let sx = 0, sy = 0
+  for (let j = 0; j < m.nWings; j++) { sx += m.wingDir[2 * j]!; sy += m.wingDir[2 * j + 1]! }
+  return [sx, sy]
+}
+
+/** Balances positions p0 of model m in lattice `lat`. */
+export function solveBalance(
+  m: PatternModel, p0: Float64Array, lat: Lattice, options?: BalanceOptions,
+): BalanceSolveResult {
+  const o = resolveBalanceOptions(options)
+  const n = 2 * m.nVertices
+  const [wx, wy] = openWingSum(m)
+  const fullNorm = (p: Float64Array) => Math.hypot(...balanceResidual(m, p, lat))
+  if (Math.hypot(wx, wy) > o.tolerance) {
+    return {
+      converged: false, iterations: 0, residualNorm: fullNorm(p0), positions: Float64Array.from(p0),
+      reason: `the open wings' directions sum to (${wx.toPrecision(4)}, ${wy.toPrecision(4)}), not 0: no drawing can balance`,
+    }
+  }
+  const minLength = o.collapseFraction * meanEdgeLength(m, p0, lat)
+  // free unknowns: every coordinate except vertex 0's
+  const embed = (x: Float64Array) => { const p = Float64Array.from(p0); p.set(x, 2); return p }
+  let ref = -1
+  if (m.space === 'plane') {
+    for (let e = 0; e < m.nEdges && ref < 0; e++) if (m.edgeFrom[e] !== m.edgeTo[e]) ref = e
+  }
+  const refFrom = ref >= 0 ? m.edgeFrom[ref]! : 0, refTo = ref >= 0 ? m.edgeTo[ref]! : 0
+  const d0 = ref >= 0
+    ? [p0[2 * refTo]! - p0[2 * refFrom]!, p0[2 * refTo + 1]! - p0[2 * refFrom + 1]!]
+    : [0, 0]
+  const l0 = Math.hypot(d0[0]!, d0[1]!)
+  const scaleRow = (p: Float64Array) => ref < 0 ? [] : [
+    ((p[2 * refTo]! - p[2 * refFrom]!) * d0[0]! + (p[2 * refTo + 1]! - p[2 * refFrom + 1]!) * d0[1]!) / l0 - l0,
+  ]
+  const result = dampedNewton({
+    x0: p0.slice(2),
+    residual: (x) => {
+      const p = embed(x)
+      return Float64Array.from([...balanceResidual(m, p, lat).subarray(2), ...scaleRow(p)])
+    },
+    jacobian: (x) => {
+      const j = tripletsToDense(balanceJacobian(m, embed(x), lat)).subMatrix(2, n - 1, 2, n - 1)
+      if (ref < 0) return j
+      const row = new Array<number>(n - 2).fill(0)
+      for (const [v, s] of [[refTo, 1], [refFrom, -1]] as const) {
+        if (v === 0) continue
+        row[2 * v - 2]! += s * d0[0]! / l0
+        row[2 * v - 1]! += s * d0[1]! / l0
+      }
+      return j.addRow(row)
+    },
+    norm: x => fullNorm(embed(x)),
+    merit: {
+      value: x => lengthFunctional(m, embed(x), lat),
+      // ∂L/∂p = −B, so the slope along dx is −B·dx on the free coordinates
+      slope: (x, dx) => {
+        const b = balanceResidual(m, embed(x), lat)
+        let s = 0
+        for (let i = 0; i < dx.length; i++) s -= b[i + 2]! * dx[i]!
+        return s
+      },
+    },
+    admissible: x => edgeLengths(m, embed(x), lat).every(l => l > minLength),
+  }, o)
+  return {
+    converged: result.converged,
+    iterations: result.iterations,
+    residualNorm: result.residualNorm,
+    positions: embed(result.x),
+    ...(result.reason ? { reason: result.reason } : {}),
+  }
+}
+
+/** Result of `balancePattern`: the balanced document (positions replaced) and the solve data. */
+export interface BalancePatternResult {
+  converged: boolean
+  iterations: number
+  residualNorm: number
+  document: PatternDocument
+  reason?: string
+}
+
+/** Balances a parsed document's drawing; the returned document carries the final positions. */
+export function balancePattern(doc: PatternDocument, options?: BalanceOptions): BalancePatternResult {
+  const m = compilePattern(doc)
+  const r = solveBalance(m, m.positions, m.lattice, options)
+  const document: PatternDocument = {
+    ...doc,
+    vertices: doc.vertices.map((v, i) => ({ ...v, position: [r.positions[2 * i]!, r.positions[2 * i + 1]!] })),
+  }
+  return {
+    converged: r.converged, iterations: r.iterations, residualNorm: r.residualNorm, document,
+    ...(r.reason ? { reason: r.reason } : {}),
+  }
+}

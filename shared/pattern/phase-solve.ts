@@ -1,0 +1,108 @@
+/**
+ * Phase solve and phase rigidity (domain.md §5). The solve is damped Newton on the vertex phases
+ * ψ with ψ of the first vertex pinned (the global shift is a symmetry) and α, K fixed.
+ * Phase rigidity: the Jacobian ∂G/∂ψ restricted to the complement of the constants; its
+ * eigenvalues are divided by the mean weight K̄ to be dimensionless. Phase-rigid ⇔ rank V − c
+ * (connected: V − 1) ⇔ σ_min/K̄ > tolerance.
+ */
+import type { PatternModel } from './model'
+import { dampedNewton } from './newton'
+import { phaseJacobian, phaseResidual } from './phases'
+import { inertiaOf, reducedSpectrum, tripletsToDense, type Inertia } from './spectrum'
+
+/** Options of the phase solve. */
+export interface PhaseSolveOptions {
+  /** Newton iterations at most (default 60). */
+  maxIterations?: number
+  /** Converged when ‖G‖₂ / K̄ ≤ tolerance (default 1e-10). */
+  tolerance?: number
+}
+
+export const DEFAULT_PHASE_SOLVE_OPTIONS: Required<PhaseSolveOptions> = { maxIterations: 60, tolerance: 1e-10 }
+
+/** Fills defaults and rejects nonsense. */
+export function resolvePhaseSolveOptions(o: PhaseSolveOptions = {}): Required<PhaseSolveOptions> {
+  const r = { ...DEFAULT_PHASE_SOLVE_OPTIONS, ...o }
+  if (!(Number.isInteger(r.maxIterations) && r.maxIterations >= 0)) throw new Error('maxIterations must be an integer ≥ 0')
+  if (!(r.tolerance > 0)) throw new Error('tolerance must be positive')
+  return r
+}
+
+/** Mean weight K̄ (1 without edges). */
+export function meanWeight(weights: Float64Array): number {
+  return weights.length ? weights.reduce((s, k) => s + k, 0) / weights.length : 1
+}
+
+/** Phase solve result. */
+export interface PhaseSolveResult {
+  converged: boolean
+  iterations: number
+  /** ‖G‖₂ / K̄ at the end. */
+  residualNorm: number
+  psi: Float64Array
+  reason?: string
+}
+
+/** Solves G(ψ) = 0 from psi0 with α and the weights fixed. */
+export function solvePhases(
+  m: PatternModel, psi0: Float64Array, alpha: readonly [number, number], weights: Float64Array,
+  options?: PhaseSolveOptions,
+): PhaseSolveResult {
+  const o = resolvePhaseSolveOptions(options)
+  const kBar = meanWeight(weights)
+  const V = m.nVertices
+  const embed = (x: Float64Array) => { const p = Float64Array.from(psi0); p.set(x, 1); return p }
+  const r = dampedNewton({
+    x0: psi0.slice(1),
+    residual: x => phaseResidual(m, embed(x), alpha, weights).slice(1),
+    jacobian: x => tripletsToDense(phaseJacobian(m, embed(x), alpha, weights)).subMatrix(1, V - 1, 1, V - 1),
+    norm: x => Math.hypot(...phaseResidual(m, embed(x), alpha, weights)) / kBar,
+  }, o)
+  return {
+    converged: r.converged, iterations: r.iterations, residualNorm: r.residualNorm, psi: embed(r.x),
+    ...(r.reason ? { reason: r.reason } : {}),
+  }
+}
+
+/** Phase rigidity of ψ: dimensionless σ_min, inertia, the weakest phase mode. */
+export interface PhaseRigidityResult {
+  method: 'dense' | 'skipped'
+  reason?: string
+  dimension: number
+  sigmaMin: number | null
+  inertia: Inertia | null
+  /** Reduced eigenvalues / K̄, ascending. */
+  eigenvalues: number[]
+  rigid: boolean | null
+  /** Unit phase displacement per vertex of the weakest mode. */
+  weakestMode: number[]
+  tolerance: number
+}
+
+/** Phase rigidity by the dense reduced spectrum (skipped above maxDenseVertices). */
+export function analyzePhaseRigidity(
+  m: PatternModel, psi: Float64Array, alpha: readonly [number, number], weights: Float64Array,
+  tolerance: number, maxDenseVertices: number,
+): PhaseRigidityResult {
+  if (m.nVertices > maxDenseVertices) {
+    return {
+      method: 'skipped', dimension: 0, sigmaMin: null, inertia: null, eigenvalues: [], rigid: null,
+      weakestMode: [], tolerance,
+      reason: `${m.nVertices} vertices exceed maxDenseVertices = ${maxDenseVertices}; the sparse method is not connected yet`,
+    }
+  }
+  const kBar = meanWeight(weights)
+  const s = reducedSpectrum(phaseJacobian(m, psi, alpha, weights), [new Float64Array(m.nVertices).fill(1)])
+  const eigenvalues = s.eigenvalues.map(l => l / kBar)
+  const sigmaMin = s.dimension === 0 ? null : s.sigmaMin / kBar
+  return {
+    method: 'dense',
+    dimension: s.dimension,
+    sigmaMin,
+    inertia: inertiaOf(eigenvalues, tolerance),
+    eigenvalues,
+    rigid: sigmaMin === null ? true : sigmaMin > tolerance,
+    weakestMode: s.weakestMode,
+    tolerance,
+  }
+}
