@@ -16,11 +16,14 @@ export default defineNuxtConfig({
       meta: [{ name: 'description', content: 'Check gluing patterns, follow their balanced families, keep them as verified runs.' }],
     },
   },
+  // Every key can be overridden by an environment variable: NUXT_<KEY_IN_SNAKE_CASE> (README table).
   runtimeConfig: {
     databaseUrl: 'file:./data/wingfold.db',
     migrationsDir: '',
     allowSignup: true,
     seedDemo: true,
+    trustProxy: false,
+    signInLimit: { perAccount: 5, perAddress: 30, windowMinutes: 15 },
     smtpUrl: '',
     mailFrom: 'Wingfold <no-reply@wingfold.local>',
     public: {
@@ -28,6 +31,7 @@ export default defineNuxtConfig({
       baseUrl: 'http://localhost:3000',
     },
   },
+  tailwindcss: { configPath: 'tailwind.config.ts', cssPath: false },
   vite: {
     worker: { format: 'es' },
     optimizeDeps: {

@@ -1,0 +1,5 @@
+/** Site settings, for site administrators. */
+export default defineEventHandler(async (event) => {
+  await requireAdmin(event)
+  return { signupEnabled: await isSignupEnabled() }
+})

@@ -1,0 +1,4 @@
+/** Hold every request until the database is migrated (and seeded on first start). */
+export default defineEventHandler(async () => {
+  await ensureDatabase()
+})

@@ -1,0 +1,96 @@
+/**
+ * Start the BUILT Wingfold server (`.output/server/index.mjs`, made by `nuxt build`) as a child
+ * process on a free port, with a fresh temporary SQLite file and a generated session password.
+ * The demo seed runs on its first start, so the demo accounts of server/db/demo-data.ts exist.
+ */
+import { spawn, type ChildProcess } from 'node:child_process'
+import { randomBytes } from 'node:crypto'
+import { existsSync, mkdtempSync, rmSync } from 'node:fs'
+import { createServer } from 'node:net'
+import { tmpdir } from 'node:os'
+import { join, resolve } from 'node:path'
+
+/** Repository root (tests/support/ → ../..). */
+export const ROOT = resolve(import.meta.dirname, '../..')
+
+/** A running test server. */
+export interface TestServer {
+  /** Base URL, e.g. http://127.0.0.1:41234 */
+  url: string
+  /** Temporary folder holding the SQLite file (removed by `stop`). */
+  dataDir: string
+  /** Everything the server printed so far (stdout and stderr). */
+  output: () => string
+  /** Stop the process and delete the temporary folder. */
+  stop: () => Promise<void>
+}
+
+/** Options of {@link startServer}. */
+export interface StartServerOptions {
+  /** Extra environment variables (e.g. `NUXT_SIGN_IN_LIMIT_PER_ADDRESS`). */
+  env?: Record<string, string>
+  /** Milliseconds to wait for /api/health (default 60 000). */
+  timeoutMs?: number
+}
+
+/** Ask the OS for a free TCP port. */
+export function freePort(): Promise<number> {
+  return new Promise((ok, fail) => {
+    const srv = createServer()
+    srv.once('error', fail)
+    srv.listen(0, '127.0.0.1', () => {
+      const { port } = srv.address() as { port: number }
+      srv.close(() => ok(port))
+    })
+  })
+}
+
+/** Start the built server; resolves once /api/health answers 200 (migrated and seeded). */
+export async function startServer(opts: StartServerOptions = {}): Promise<TestServer> {
+  const entry = join(ROOT, '.output/server/index.mjs')
+  if (!existsSync(entry)) throw new Error('No build found: run `npx nuxt build` before the server and e2e tests (npm test does).')
+  const dataDir = mkdtempSync(join(tmpdir(), 'wingfold-test-'))
+  const port = await freePort()
+  const url = `http://127.0.0.1:${port}`
+  let log = ''
+  const child: ChildProcess = spawn(process.execPath, [entry], {
+    cwd: ROOT,
+    env: {
+      ...process.env,
+      HOST: '127.0.0.1',
+      PORT: String(port),
+      NODE_ENV: 'production',
+      NUXT_DATABASE_URL: `file:${join(dataDir, 'wingfold.db')}`,
+      NUXT_MIGRATIONS_DIR: join(ROOT, 'server/migrations'),
+      NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
+      NUXT_PUBLIC_BASE_URL: url,
+      ...opts.env,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  })
+  child.stdout!.on('data', (d) => { log += d })
+  child.stderr!.on('data', (d) => { log += d })
+  const exited = new Promise<void>(ok => child.once('exit', () => ok()))
+
+  const stop = async () => {
+    if (child.exitCode === null) {
+      child.kill('SIGTERM')
+      await Promise.race([exited, new Promise(ok => setTimeout(ok, 5000))])
+      if (child.exitCode === null) child.kill('SIGKILL')
+    }
+    rmSync(dataDir, { recursive: true, force: true })
+  }
+
+  const deadline = Date.now() + (opts.timeoutMs ?? 60_000)
+  while (Date.now() < deadline) {
+    if (child.exitCode !== null) break
+    try {
+      const res = await fetch(`${url}/api/health`)
+      if (res.ok) return { url, dataDir, output: () => log, stop }
+    }
+    catch { /* not listening yet */ }
+    await new Promise(ok => setTimeout(ok, 200))
+  }
+  await stop()
+  throw new Error(`The Wingfold server did not become healthy at ${url}.\n${log}`)
+}
