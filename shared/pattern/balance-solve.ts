@@ -10,7 +10,7 @@
  */
 import type { PatternDocument } from '../types/pattern'
 import { balanceJacobian, balanceResidual } from './balance'
-import { edgeLengths, lengthFunctional, meanEdgeLength } from './geometry'
+import { edgeLengths, edgeVectors, lengthFunctional, meanEdgeLength } from './geometry'
 import type { Lattice, PatternModel } from './model'
 import { compilePattern } from './model'
 import { dampedNewton } from './newton'
@@ -20,7 +20,7 @@ import { tripletsToDense } from './spectrum'
 export interface BalanceOptions {
   /** Newton iterations at most (default 60). */
   maxIterations?: number
-  /** Converged when ‖B‖₂ ≤ tolerance (B is a sum of unit vectors: dimensionless; default 1e-10). */
+  /** Converged when ‖B‖₂ ≤ tolerance (B is a sum of unit vectors: dimensionless; default 1e-12). */
   tolerance?: number
   /** Reject steps that shrink an edge below this fraction of the mean length (default 1e-8). */
   collapseFraction?: number
@@ -28,7 +28,7 @@ export interface BalanceOptions {
 
 export const DEFAULT_BALANCE_OPTIONS: Required<BalanceOptions> = {
   maxIterations: 60,
-  tolerance: 1e-10,
+  tolerance: 1e-12,
   collapseFraction: 1e-8,
 }
 
@@ -47,8 +47,13 @@ export interface BalanceSolveResult {
   iterations: number
   residualNorm: number
   positions: Float64Array
+  /** Shortest closed edge at the end (index and length; −1 and Infinity without edges). */
+  shortestEdge: { edge: number, length: number }
   reason?: string
 }
+
+/** Below this fraction of the mean length a failing solve is reported as a collapse. */
+const COLLAPSE_REPORT_FRACTION = 0.05
 
 /** Sum of the open wings' unit directions (must vanish for a balanced plane pattern). */
 export function openWingSum(m: PatternModel): [number, number] {
@@ -68,6 +73,7 @@ export function solveBalance(
   if (Math.hypot(wx, wy) > o.tolerance) {
     return {
       converged: false, iterations: 0, residualNorm: fullNorm(p0), positions: Float64Array.from(p0),
+      shortestEdge: shortestEdge(m, p0, lat),
       reason: `the open wings' directions sum to (${wx.toPrecision(4)}, ${wy.toPrecision(4)}), not 0: no drawing can balance`,
     }
   }
@@ -116,13 +122,45 @@ export function solveBalance(
     },
     admissible: x => edgeLengths(m, embed(x), lat).every(l => l > minLength),
   }, o)
+  const positions = embed(result.x)
+  const shortest = shortestEdge(m, positions, lat)
+  let reason = result.reason
+  if (!result.converged && shortest.edge >= 0 && (
+    shortest.length < COLLAPSE_REPORT_FRACTION * meanEdgeLength(m, positions, lat)
+    || lengthFunctional(m, collapsedCandidate(m, positions, lat, shortest.edge), lat) <= lengthFunctional(m, positions, lat))) {
+    reason = `edge '${m.edgeIds[shortest.edge]}' is collapsing (length ${shortest.length.toPrecision(3)}): `
+      + `the least-length drawing has a zero-length edge; ${result.reason}`
+  }
   return {
     converged: result.converged,
     iterations: result.iterations,
     residualNorm: result.residualNorm,
-    positions: embed(result.x),
-    ...(result.reason ? { reason: result.reason } : {}),
+    positions,
+    shortestEdge: shortest,
+    ...(reason ? { reason } : {}),
   }
+}
+
+/**
+ * The drawing with edge e shrunk to zero length by moving one end (not the pinned vertex 0).
+ * L is convex, so when this does not increase L the least-length drawing is (near) a collapse.
+ */
+function collapsedCandidate(m: PatternModel, p: Float64Array, lat: Lattice, e: number): Float64Array {
+  const q = Float64Array.from(p)
+  const x = edgeVectors(m, p, lat)
+  const moveTo = m.edgeTo[e] !== 0
+  const v = moveTo ? m.edgeTo[e]! : m.edgeFrom[e]!
+  const sign = moveTo ? -1 : 1
+  q[2 * v]! += sign * x[2 * e]!
+  q[2 * v + 1]! += sign * x[2 * e + 1]!
+  return q
+}
+
+function shortestEdge(m: PatternModel, p: Float64Array, lat: Lattice): { edge: number, length: number } {
+  const l = edgeLengths(m, p, lat)
+  let edge = -1
+  for (let e = 0; e < l.length; e++) if (edge < 0 || l[e]! < l[edge]!) edge = e
+  return { edge, length: edge < 0 ? Infinity : l[edge]! }
 }
 
 /** Result of `balancePattern`: the balanced document (positions replaced) and the solve data. */

@@ -1,0 +1,104 @@
+/**
+ * Outside check: the Fermat–Torricelli point through the torus two-vertex three-edge pattern.
+ * The free vertex joined to 0, ω1, ω2 must land on the first isogonic centre X(13) of that
+ * triangle, with total length L, L² = (a² + b² + c²)/2 + 2√3·Area (all angles < 120°).
+ */
+import { describe, expect, it } from 'vitest'
+import { balancePattern, solveBalance } from '../../../shared/pattern/balance-solve'
+import { compilePattern } from '../../../shared/pattern/model'
+import { totalLength } from '../../../shared/pattern/geometry'
+import { reportDeviation, torusDoc } from './helpers'
+
+type P = [number, number]
+
+function fermatDoc(w1: P, w2: P, start: P) {
+  return torusDoc(w1, w2, { corner: [0, 0], free: start }, [
+    ['corner', 'free', [0, 0]], ['corner', 'free', [-1, 0]], ['corner', 'free', [0, -1]],
+  ])
+}
+
+/** X(13) from its trilinears csc(A + π/3) : csc(B + π/3) : csc(C + π/3) (C. Kimberling, Encyclopedia of Triangle Centers). */
+function isogonicCentre(A: P, B: P, C: P): P {
+  const d = (p: P, q: P) => Math.hypot(p[0] - q[0], p[1] - q[1])
+  const a = d(B, C), b = d(C, A), c = d(A, B)
+  const angle = (opp: number, s1: number, s2: number) => Math.acos((s1 * s1 + s2 * s2 - opp * opp) / (2 * s1 * s2))
+  const [tA, tB, tC] = [angle(a, b, c), angle(b, c, a), angle(c, a, b)].map(x => 1 / Math.sin(x + Math.PI / 3))
+  // trilinears x : y : z → barycentrics a x : b y : c z
+  const wa = a * tA!, wb = b * tB!, wc = c * tC!
+  const s = wa + wb + wc
+  return [(wa * A[0] + wb * B[0] + wc * C[0]) / s, (wa * A[1] + wb * B[1] + wc * C[1]) / s]
+}
+
+const cases: { label: string, w1: P, w2: P, L: number, point?: P }[] = [
+  // issue 3 §7 / domain.md §7 (classical Fermat–Torricelli; Kimberling X(13))
+  { label: '3-4-5 triangle', w1: [4, 0], w2: [0, 3], L: Math.sqrt(25 + 12 * Math.sqrt(3)) },
+  { label: 'ω1 = (1,1), ω2 = (0,1)', w1: [1, 1], w2: [0, 1], L: Math.sqrt(2 + Math.sqrt(3)), point: [0.2113248654, 0.7886751346] },
+  { label: 'ω1 = (2,0), ω2 = (1,2)', w1: [2, 0], w2: [1, 2], L: 2 + Math.sqrt(3), point: [1, 0.5773502692] },
+]
+
+describe('Fermat–Torricelli through the torus pattern', () => {
+  for (const c of cases) {
+    it(`balances at the isogonic centre with the closed-form length: ${c.label}`, () => {
+      const start: P = [(c.w1[0] + c.w2[0]) / 3 + 0.13, (c.w1[1] + c.w2[1]) / 3 - 0.07]
+      const r = balancePattern(fermatDoc(c.w1, c.w2, start))
+      expect(r.converged).toBe(true)
+      const p = r.document.vertices[1]!.position
+      const m = compilePattern(r.document)
+      const L = totalLength(m, m.positions, m.lattice)
+      const x13 = isogonicCentre([0, 0], c.w1, c.w2)
+      const dPoint = Math.hypot(p[0] - x13[0], p[1] - x13[1])
+      reportDeviation(`Fermat length, ${c.label}`, 'classical; Kimberling ETC X(13)', Math.abs(L - c.L))
+      reportDeviation(`Fermat point vs X(13) trilinears, ${c.label}`, 'Kimberling ETC X(13)', dPoint)
+      expect(Math.abs(L - c.L)).toBeLessThan(1e-12)
+      expect(dPoint).toBeLessThan(1e-10)
+      // L² = (a² + b² + c²)/2 + 2√3·Area (classical, domain.md §7)
+      const [a2, b2, c2] = [c.w1[0] ** 2 + c.w1[1] ** 2, c.w2[0] ** 2 + c.w2[1] ** 2,
+        (c.w1[0] - c.w2[0]) ** 2 + (c.w1[1] - c.w2[1]) ** 2]
+      const area = Math.abs(c.w1[0] * c.w2[1] - c.w1[1] * c.w2[0]) / 2
+      expect(Math.abs(L * L - ((a2 + b2 + c2) / 2 + 2 * Math.sqrt(3) * area))).toBeLessThan(1e-11)
+      if (c.point) {
+        const dGiven = Math.hypot(p[0] - c.point[0], p[1] - c.point[1])
+        reportDeviation(`Fermat point vs issue value, ${c.label}`, 'issue 3 §7 (10 digits)', dGiven)
+        expect(dGiven).toBeLessThan(1e-9)
+      }
+    })
+  }
+
+  it('collapses the edge at a corner whose angle exceeds 120° (the vertex sits at the obtuse corner)', () => {
+    // angle at 0 between ω1 = (1, 0) and ω2 = (−0.6, 0.5) is about 140°: the Fermat point is the corner 0
+    const m = compilePattern(fermatDoc([1, 0], [-0.6, 0.5], [0.2, 0.3]))
+    const r = solveBalance(m, m.positions, m.lattice)
+    expect(r.converged).toBe(false)
+    expect(r.reason).toMatch(/collapsing/)
+    expect(m.edgeIds[r.shortestEdge.edge]).toBe('e0') // the edge to the corner 0
+    // classical: with an angle ≥ 120° the least total length is the sum of the two sides at that corner
+    const cornerLength = 1 + Math.hypot(-0.6, 0.5)
+    const L = totalLength(m, r.positions, m.lattice)
+    expect(L).toBeGreaterThanOrEqual(cornerLength - 1e-12)
+    expect(L - cornerLength).toBeLessThan(0.05)
+  })
+})
+
+describe('sheared square two-vertex net', () => {
+  // The point minimising the distance sum to a convex quadrilateral's corners is the crossing of
+  // its diagonals (classical, common practice): for the parallelogram 0, ω1, ω2, ω1 + ω2 the
+  // centre, with total length |ω1 + ω2| + |ω2 − ω1|.
+  for (const s of [-0.7, -0.3, 0, 0.25, 0.6, 1.1]) {
+    it(`stays balanced at the parallelogram centre, shear s = ${s}`, () => {
+      const w1: P = [1, 0], w2: P = [s, 1]
+      const doc = torusDoc(w1, w2, { a: [0, 0], b: [0.31, 0.62] }, [
+        ['a', 'b', [0, 0]], ['a', 'b', [-1, 0]], ['a', 'b', [0, -1]], ['a', 'b', [-1, -1]],
+      ])
+      const r = balancePattern(doc)
+      expect(r.converged).toBe(true)
+      const p = r.document.vertices[1]!.position
+      const centre: P = [(w1[0] + w2[0]) / 2, (w1[1] + w2[1]) / 2]
+      const m = compilePattern(r.document)
+      const L = totalLength(m, m.positions, m.lattice)
+      const expected = Math.hypot(w1[0] + w2[0], w1[1] + w2[1]) + Math.hypot(w2[0] - w1[0], w2[1] - w1[1])
+      reportDeviation(`sheared square net s=${s}: length`, 'diagonal crossing, common practice', Math.abs(L - expected))
+      expect(Math.hypot(p[0] - centre[0], p[1] - centre[1])).toBeLessThan(1e-10)
+      expect(Math.abs(L - expected)).toBeLessThan(1e-12)
+    })
+  }
+})
