@@ -1,7 +1,9 @@
 /**
- * Start the BUILT Wingfold server (`.output/server/index.mjs`, made by `nuxt build`) as a child
- * process on a free port, with a fresh temporary SQLite file and a generated session password.
- * The demo seed runs on its first start, so the demo accounts of server/db/demo-data.ts exist.
+ * Start Wingfold as a child process on a free port, with a fresh temporary SQLite file and a
+ * generated session password: by default the BUILT server (`.output/server/index.mjs`, made by
+ * `nuxt build`), or `nuxt dev` with `mode: 'dev'`. The demo seed runs on its first start, so the
+ * demo accounts of server/db/demo-data.ts exist. The process runs in its own process group, and
+ * `stop()` ends that group only.
  */
 import { spawn, type ChildProcess } from 'node:child_process'
 import { randomBytes } from 'node:crypto'
@@ -29,8 +31,10 @@ export interface TestServer {
 export interface StartServerOptions {
   /** Extra environment variables (e.g. `NUXT_SIGN_IN_LIMIT_PER_ADDRESS`). */
   env?: Record<string, string>
-  /** Milliseconds to wait for /api/health (default 60 000). */
+  /** Milliseconds to wait for /api/health (default 60 000 for the build, 180 000 for dev). */
   timeoutMs?: number
+  /** `build` (default): the production build; `dev`: `nuxt dev` with hot reload. */
+  mode?: 'build' | 'dev'
 }
 
 /** Ask the OS for a free TCP port. */
@@ -47,19 +51,24 @@ export function freePort(): Promise<number> {
 
 /** Start the built server; resolves once /api/health answers 200 (migrated and seeded). */
 export async function startServer(opts: StartServerOptions = {}): Promise<TestServer> {
+  const dev = opts.mode === 'dev'
   const entry = join(ROOT, '.output/server/index.mjs')
-  if (!existsSync(entry)) throw new Error('No build found: run `npx nuxt build` before the server and e2e tests (npm test does).')
+  if (!dev && !existsSync(entry)) throw new Error('No build found: run `npx nuxt build` before the server and e2e tests (npm test does).')
   const dataDir = mkdtempSync(join(tmpdir(), 'wingfold-test-'))
   const port = await freePort()
   const url = `http://127.0.0.1:${port}`
   let log = ''
-  const child: ChildProcess = spawn(process.execPath, [entry], {
+  const args = dev
+    ? [join(ROOT, 'node_modules/nuxt/bin/nuxt.mjs'), 'dev', '--port', String(port), '--host', '127.0.0.1', '--no-fork']
+    : [entry]
+  const child: ChildProcess = spawn(process.execPath, args, {
     cwd: ROOT,
+    detached: true,
     env: {
       ...process.env,
       HOST: '127.0.0.1',
       PORT: String(port),
-      NODE_ENV: 'production',
+      NODE_ENV: dev ? 'development' : 'production',
       NUXT_DATABASE_URL: `file:${join(dataDir, 'wingfold.db')}`,
       NUXT_MIGRATIONS_DIR: join(ROOT, 'server/migrations'),
       NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
@@ -74,14 +83,14 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
 
   const stop = async () => {
     if (child.exitCode === null) {
-      child.kill('SIGTERM')
+      process.kill(-child.pid!, 'SIGTERM')
       await Promise.race([exited, new Promise(ok => setTimeout(ok, 5000))])
-      if (child.exitCode === null) child.kill('SIGKILL')
+      if (child.exitCode === null) process.kill(-child.pid!, 'SIGKILL')
     }
     rmSync(dataDir, { recursive: true, force: true })
   }
 
-  const deadline = Date.now() + (opts.timeoutMs ?? 60_000)
+  const deadline = Date.now() + (opts.timeoutMs ?? (dev ? 180_000 : 60_000))
   while (Date.now() < deadline) {
     if (child.exitCode !== null) break
     try {

@@ -1,0 +1,19 @@
+/** The comlink pattern worker is reachable from a page under `nuxt dev` too (not only the build). */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { startServer, type TestServer } from '../support/server'
+import { gotoHydrated, launchBrowser, type TestBrowser } from '../support/browser'
+
+let server: TestServer
+let browser: TestBrowser
+beforeAll(async () => { [server, browser] = await Promise.all([startServer({ mode: 'dev' }), launchBrowser()]) })
+afterAll(async () => { await browser?.close(); await server?.stop() })
+
+describe('pattern worker in nuxt dev', () => {
+  it('answers from inside a worker on the about page', async () => {
+    const page = await browser.newPage()
+    await gotoHydrated(page, `${server.url}/about`)
+    const status = page.locator('[data-testid=worker-status]')
+    await expect.poll(() => status.getAttribute('data-status'), { timeout: 60_000 }).not.toBe('checking')
+    expect(await status.getAttribute('data-status')).toBe('ok')
+  })
+})
