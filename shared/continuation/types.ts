@@ -74,7 +74,7 @@ export interface ContinuationPoint {
   stepSize: number
   /** Step size the engine will try next from this point (used by restarts). */
   nextStepSize: number
-  /** Cumulative arclength from the branch start. */
+  /** Cumulative pseudo-arclength from the branch start (sum of the tangent-projected steps Δs; slightly below the true arc length). */
   arclength: number
   newtonIterations: number
   /** Max-norm of F at the point. */
