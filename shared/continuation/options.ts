@@ -55,7 +55,7 @@ export interface ContinuationOptions {
   allowSingularStart?: boolean
   /** F_u counts as singular at the start when σ_min ≤ this · max(1, max|F_u|). Default 1e-10. */
   singularTolerance?: number
-  /** Inverse-iteration steps of the σ_min estimate. Default 3. */
+  /** Inverse-iteration steps of the σ_min estimate (each: one solve, two when F_u is unsymmetric). Default 5. */
   sigmaIterations?: number
   /**
    * Bordering is accepted when the bordered residual ≤ this · (|rhs| + |M|·|x|) (max norms);
@@ -74,7 +74,7 @@ export const CONTINUATION_DEFAULTS = {
   lambdaMin: -Infinity, lambdaMax: Infinity, stateBounds: [] as StateBound[], milestones: [] as number[],
   stopAtSpecialPoint: false, detectFolds: true, detectBranchPoints: true, detectRigidityLoss: true,
   locateTolerance: 1e-9, maxLocateIterations: 60, closedLoopTolerance: 1e-6,
-  allowSingularStart: false, singularTolerance: 1e-10, sigmaIterations: 3, borderingTolerance: 1e-9,
+  allowSingularStart: false, singularTolerance: 1e-10, sigmaIterations: 5, borderingTolerance: 1e-9,
   solver: {} as SolverOptions,
 } satisfies Required<ContinuationOptions>
 

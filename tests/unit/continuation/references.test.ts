@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest'
+import { TripletBuilder } from '../../../shared/linalg/triplets'
+import type { ContinuationProblem } from '../../../shared/continuation'
 import { runContinuation } from '../../../shared/continuation'
 import { scalarProblem, twistedRing } from './problems'
 
@@ -60,7 +62,31 @@ describe('twisted states on a ring: rigidity loss that no determinant sign sees'
       const exactSigma = Math.abs(Math.cos(q.lambda / m)) * (2 - 2 * Math.cos(Math.PI / m))
       worst = Math.max(worst, Math.abs(q.sigmaMin! - exactSigma) / exactSigma)
     }
-    console.log(`twisted ring: σ_min estimate (3 inverse-iteration steps) max relative deviation ${worst.toExponential(2)}`)
+    console.log(`twisted ring: σ_min estimate (default inverse-iteration steps) max relative deviation ${worst.toExponential(2)}`)
     expect(worst).toBeLessThan(1e-2)
   })
+})
+
+describe('unsymmetric system with a fold, and the dense solver path', () => {
+  // F = (x² + λ + y/2, 3y − x): y = x/3, λ = −x² − x/6, fold at x = −1/12, λ = 1/144 (derived).
+  const problem: ContinuationProblem = {
+    n: 2,
+    residual: (u, l, out) => { out[0] = u[0]! ** 2 + l + u[1]! / 2; out[1] = 3 * u[1]! - u[0]! },
+    jacobian: (u) => {
+      const b = new TripletBuilder(2, 2)
+      b.add(0, 0, 2 * u[0]!); b.add(0, 1, 0.5); b.add(1, 0, -1); b.add(1, 1, 3)
+      return { Fu: b.build(), Flambda: Float64Array.of(1, 0) }
+    },
+  }
+  for (const method of ['auto', 'dense'] as const) {
+    it(`fold at x = −1/12, λ = 1/144 (solver ${method})`, () => {
+      const r = runContinuation(problem, { u: [-1, -1 / 3], lambda: -1 + 1 / 6 }, { stopAtSpecialPoint: true, solver: { method } })
+      const f = r.specialPoints[0]!
+      expect(f.kind).toBe('fold')
+      console.log(`unsymmetric fold (${method}): x deviation ${(f.u[0]! + 1 / 12).toExponential(2)}, λ deviation ${(f.lambda - 1 / 144).toExponential(2)}`)
+      expect(Math.abs(f.u[0]! + 1 / 12)).toBeLessThan(1e-8)
+      expect(Math.abs(f.u[1]! + 1 / 36)).toBeLessThan(1e-8)
+      expect(Math.abs(f.lambda - 1 / 144)).toBeLessThan(1e-12)
+    })
+  }
 })
