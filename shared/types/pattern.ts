@@ -29,7 +29,7 @@ const IntVec2 = z.tuple([z.number().int(), z.number().int()])
 /** A vertex: one saddle tower, at a position in the plane (torus: any representative). */
 export const PatternVertexSchema = z.strictObject({
   id: Id,
-  position: Vec2,
+  position: Vec2.describe('Position [x, y]; in the torus any representative of the vertex'),
   label: z.string().max(200).optional(),
 })
 
@@ -39,16 +39,16 @@ export const PatternEdgeSchema = z.strictObject({
   from: Id,
   to: Id,
   /** Integer lattice shift k (torus only; absent means [0, 0]). */
-  shift: IntVec2.optional(),
+  shift: IntVec2.optional().describe('Integer lattice shift [k1, k2]: the edge ends at to + k1 w1 + k2 w2 (torus only; default [0, 0])'),
   /** Phase weight K_e > 0 (vertical balance); default 1. */
-  weight: z.number().positive().optional(),
+  weight: z.number().positive().optional().describe('Phase weight K > 0 of the edge (default 1)'),
 })
 
 /** An open wing (plane only): a free end at a vertex pointing in a fixed direction. */
 export const PatternWingSchema = z.strictObject({
   id: Id,
   vertex: Id,
-  direction: Vec2,
+  direction: Vec2.describe('Direction [x, y] of the open wing (any non-zero length)'),
 })
 
 /** Torus lattice Λ = Z ω1 + Z ω2 with det(ω1, ω2) > 0. */
@@ -59,7 +59,7 @@ export const PatternLatticeSchema = z.strictObject({
 
 /** Phase data: period phases α = (α1, α2) and optional vertex phases ψ (radians). */
 export const PatternPhasesSchema = z.strictObject({
-  alpha: Vec2,
+  alpha: Vec2.describe('Period phases [α1, α2] in radians: the phase gained along w1 and w2'),
   /** Vertex phases by vertex id; missing vertices start at 0. */
   vertexPhases: z.record(z.string(), z.number()).optional(),
 })
@@ -67,7 +67,7 @@ export const PatternPhasesSchema = z.strictObject({
 /** Display hints: they never change a verdict. */
 export const PatternDisplaySchema = z.strictObject({
   /** Copies of the fundamental domain to draw along ω1 and ω2. */
-  tiles: IntVec2.optional(),
+  tiles: IntVec2.optional().describe('Copies of the fundamental domain to draw along w1 and w2'),
   /** A CSS colour for the edges. */
   edgeColor: z.string().max(40).optional(),
   showLabels: z.boolean().optional(),
@@ -80,16 +80,17 @@ export const PatternDisplaySchema = z.strictObject({
  * order is read from the drawing (needed only when directions at a vertex coincide).
  */
 export const PatternDocumentSchema = z.strictObject({
-  format: z.literal(PATTERN_FORMAT),
-  version: z.literal(PATTERN_VERSION),
+  format: z.literal(PATTERN_FORMAT).describe('Always "wingfold-pattern"'),
+  version: z.literal(PATTERN_VERSION).describe('Format version (1)'),
   name: z.string().min(1).max(200),
   notes: z.string().max(20000).optional(),
-  space: z.enum(PATTERN_SPACES),
-  lattice: PatternLatticeSchema.optional(),
+  space: z.enum(PATTERN_SPACES).describe('torus: triply periodic construction with a lattice; plane: singly periodic, with open wings'),
+  lattice: PatternLatticeSchema.optional().describe('Torus lattice {w1, w2} with det(w1, w2) > 0 (torus only)'),
   vertices: z.array(PatternVertexSchema).min(1),
   edges: z.array(PatternEdgeSchema),
   wings: z.array(PatternWingSchema).optional(),
-  rotation: z.record(z.string(), z.array(z.string())).optional(),
+  rotation: z.record(z.string(), z.array(z.string())).optional()
+    .describe('Optional counter-clockwise order of half-edges per vertex id: "<edge>:from", "<edge>:to" or a wing id'),
   phases: PatternPhasesSchema.optional(),
   display: PatternDisplaySchema.optional(),
 })

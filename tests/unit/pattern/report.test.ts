@@ -1,0 +1,49 @@
+/**
+ * The report on the demo examples: expected verdicts (reasoned in each example's notes), a
+ * JSON-serialisable object, explanations on failures, and the option check.
+ */
+import { describe, expect, it } from 'vitest'
+import { analyzePattern } from '../../../shared/pattern/analyze'
+import { balancePattern } from '../../../shared/pattern/balance-solve'
+import { PATTERN_EXAMPLES } from '../../../shared/examples'
+
+const expectedFailing: Record<string, string[]> = {
+  'square-pair': [],
+  'three-line-weave': ['rigidity'],
+  'two-line-knot': ['orientable'],
+  'square-grid': ['rigidity'],
+  'plane-bridge': [],
+  'fermat-pair': ['degrees', 'orientable', 'balance'],
+}
+
+describe('analyzePattern on the examples', () => {
+  for (const ex of PATTERN_EXAMPLES) {
+    it(`${ex.slug}: failing verdicts, explanations, JSON round trip`, () => {
+      const r = analyzePattern(ex.document)
+      expect(r.summary.failing).toEqual(expectedFailing[ex.slug])
+      for (const name of r.summary.failing) expect(r.verdicts[name].explanation).toMatch(/\.$/)
+      for (const v of Object.values(r.verdicts)) if (v.ok) expect(v.explanation).toBeUndefined()
+      expect(JSON.parse(JSON.stringify(r))).toEqual(r)
+    })
+  }
+
+  it('square-pair: predicted genus 3, phases away from the mirror values, balanced vertically', () => {
+    const r = analyzePattern(PATTERN_EXAMPLES[0]!.document)
+    expect(r.summary.predictedGenus).toBe(3)
+    expect(r.phases.keepsMirrorPlanes).toBe(false)
+    expect(r.verdicts.phaseBalance.ok).toBe(true)
+    expect(r.verdicts.phaseRigidity.ok).toBe(true)
+  })
+
+  it('the balanced Fermat pair passes balance and keeps its non-gluing verdicts', () => {
+    const ex = PATTERN_EXAMPLES.find(e => e.slug === 'fermat-pair')!
+    const b = balancePattern(ex.document)
+    expect(b.converged).toBe(true)
+    expect(analyzePattern(b.document).summary.failing).toEqual(['degrees', 'orientable'])
+  })
+
+  it('rejects nonsense options with a clear message', () => {
+    expect(() => analyzePattern(PATTERN_EXAMPLES[0]!.document, { balanceTolerance: -1 })).toThrow(/balanceTolerance/)
+    expect(() => analyzePattern(PATTERN_EXAMPLES[0]!.document, { maxDenseVertices: 2.5 })).toThrow(/maxDenseVertices/)
+  })
+})
