@@ -6,7 +6,7 @@ import type { Ref } from 'vue'
  * @param searchable the columns the filter text is matched against (case-insensitive)
  * @param initial the column sorted first (ascending)
  */
-export function useSortFilter<T extends Record<string, unknown>>(rows: Ref<T[] | null | undefined>, searchable: (keyof T)[], initial: keyof T & string) {
+export function useSortFilter<T extends object>(rows: Ref<T[] | null | undefined>, searchable: (keyof T)[], initial: keyof T & string) {
   const sortKey = ref<string>(initial)
   const sortDir = ref<'asc' | 'desc'>('asc')
   const filter = ref('')
@@ -19,9 +19,10 @@ export function useSortFilter<T extends Record<string, unknown>>(rows: Ref<T[] |
   const visible = computed(() => {
     const needle = filter.value.trim().toLowerCase()
     const list = (rows.value ?? []).filter(r => !needle || searchable.some(k => String(r[k] ?? '').toLowerCase().includes(needle)))
+    const key = sortKey.value as keyof T
     const sign = sortDir.value === 'asc' ? 1 : -1
     return [...list].sort((a, b) => {
-      const x = a[sortKey.value], y = b[sortKey.value]
+      const x = a[key], y = b[key]
       if (typeof x === 'number' && typeof y === 'number') return sign * (x - y)
       return sign * String(x ?? '').localeCompare(String(y ?? ''))
     })
