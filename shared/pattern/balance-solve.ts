@@ -10,7 +10,7 @@
  */
 import type { PatternDocument } from '../types/pattern'
 import { balanceJacobian, balanceResidual } from './balance'
-import { edgeLengths, edgeVectors, lengthFunctional, meanEdgeLength } from './geometry'
+import { edgeLengths, edgeVectors, lengthFunctional, meanEdgeLength, orderMargins } from './geometry'
 import type { Lattice, PatternModel } from './model'
 import { compilePattern } from './model'
 import { dampedNewton } from './newton'
@@ -156,6 +156,15 @@ function collapsedCandidate(m: PatternModel, p: Float64Array, lat: Lattice, e: n
   return q
 }
 
+/** σ as the document's `rotation` field. */
+export function explicitRotation(m: PatternModel): Record<string, string[]> {
+  const out: Record<string, string[]> = {}
+  m.vertexIds.forEach((id, v) => {
+    out[id] = Array.from(m.starHalf.subarray(m.starStart[v]!, m.starStart[v + 1]!), h => m.halfEdgeIds[h]!)
+  })
+  return out
+}
+
 function shortestEdge(m: PatternModel, p: Float64Array, lat: Lattice): { edge: number, length: number } {
   const l = edgeLengths(m, p, lat)
   let edge = -1
@@ -179,6 +188,11 @@ export function balancePattern(doc: PatternDocument, options?: BalanceOptions): 
   const document: PatternDocument = {
     ...doc,
     vertices: doc.vertices.map((v, i) => ({ ...v, position: [r.positions[2 * i]!, r.positions[2 * i + 1]!] })),
+  }
+  // The rotation was read from the rough drawing; if the new drawing disagrees with it, write it
+  // out so the pattern keeps its combinatorics and the report shows the order flip.
+  if (!doc.rotation && orderMargins(m, r.positions, m.lattice).some(x => x < 0)) {
+    document.rotation = explicitRotation(m)
   }
   return {
     converged: r.converged, iterations: r.iterations, residualNorm: r.residualNorm, document,

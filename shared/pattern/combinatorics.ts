@@ -86,7 +86,7 @@ export interface Topology {
   eulerCharacteristic: number
   /** Genus of the rotation system's surface, (2c − χ)/2 summed over components. */
   embeddingGenus: number
-  /** Genus of the glued surface's quotient, E − V + 1 (domain.md §3), for a connected pattern. */
+  /** Genus of the glued surface's quotient, E − V + 1 (domain.md §3); E − V + c summed over c components. */
   predictedGenus: number
   /** Number of open ends of the glued surface: one per open wing. */
   openEnds: number

@@ -90,3 +90,31 @@ describe('plane balance', () => {
     expect(rep.verdicts.openWings.sum).toEqual([0, 2])
   })
 })
+
+describe('balancePattern keeps the rotation read from the rough drawing', () => {
+  it('writes the rotation out when the balanced drawing flips an order, so the report shows it', async () => {
+    const { balancePattern } = await import('../../../shared/pattern/balance-solve')
+    // square pair drawn with b far off-centre: σ at a is read from this rough drawing
+    const doc = parsePatternDocument({
+      format: 'wingfold-pattern', version: 1, name: 'rough', space: 'torus', lattice: { w1: [1, 0], w2: [0, 1] },
+      vertices: [{ id: 'a', position: [0, 0] }, { id: 'b', position: [0.5, 0.5] }],
+      edges: [
+        { id: 'e0', from: 'a', to: 'b' }, { id: 'e1', from: 'a', to: 'b', shift: [-1, 0] },
+        { id: 'e2', from: 'a', to: 'b', shift: [0, -1] }, { id: 'e3', from: 'a', to: 'b', shift: [-1, -1] },
+      ],
+    })
+    const same = balancePattern(doc)
+    expect(same.document.rotation).toBeUndefined()
+    const moved = structuredClone(doc)
+    // b beyond the corner ω1 + ω2: seen from a, e2 (17°) comes before e3 (40°), while the
+    // balanced drawing (b at the centre) has e3 (−135°) before e2 (−45°)
+    moved.vertices[1]!.position = [1.6, 1.5]
+    const r = balancePattern(moved)
+    expect(r.converged).toBe(true)
+    const m0 = compilePattern(moved)
+    const flipped = Array.from(orderMargins(m0, compilePattern(r.document).positions, m0.lattice)).some(x => x < 0)
+    expect(flipped).toBe(true)
+    expect(r.document.rotation).toBeDefined()
+    expect(analyzePattern(r.document).verdicts.cyclicOrder.ok).toBe(false)
+  })
+})
