@@ -6,7 +6,8 @@
  */
 import { performance } from 'node:perf_hooks'
 import { LuDecomposition, Matrix } from 'ml-matrix'
-import { lusolve, slu, sparse } from 'mathjs'
+import * as mathjs from 'mathjs'
+import { lusolve, slu } from 'mathjs'
 import { CscPattern, LdltSymbolic, cscMultiply, ldltFactor, luFactor, nestedDissection, symmetricAdjacency, tripletsToDense } from '../shared/linalg'
 import { TripletBuilder, type Triplets } from '../shared/linalg/triplets'
 
@@ -36,52 +37,60 @@ function residual(A: ReturnType<CscPattern['fill']>, x: Float64Array, b: Float64
   return m
 }
 
+/** mathjs SparseMatrix straight from our CSC arrays (no dense detour). */
+function toMathjs(A: ReturnType<CscPattern['fill']>): unknown {
+  // mathjs exports the SparseMatrix class at run time but not in its type declarations.
+  const Ctor = (mathjs as unknown as { SparseMatrix: unknown }).SparseMatrix as new (data: { values: number[]; index: number[]; ptr: number[]; size: number[] }) => unknown
+  return new Ctor({ values: Array.from(A.values), index: Array.from(A.rowIdx), ptr: Array.from(A.colPtr), size: [A.nRows, A.nCols] })
+}
+
+/** Best of `reps` runs (the first run of a size also pays for JIT warm-up). */
+function best<T>(reps: number, f: () => T): { ms: number; value: T } {
+  let ms = Infinity, value!: T
+  for (let r = 0; r < reps; r++) { const t0 = performance.now(); value = f(); ms = Math.min(ms, performance.now() - t0) }
+  return { ms, value }
+}
+
 console.log('grid Laplacian, nested dissection (George & Liu 1978) + LDLᵀ (up-looking, Davis 2005) + LU (Gilbert & Peierls 1988)')
-console.log('      n   nnz(A)    order ms  symbolic ms  LDLᵀ num ms    nnz(L)   LU num ms   nnz(L+U)   max|Ax-b|')
-let smallTimes: { ldlt: number; lu: number } | undefined
+console.log('times: best of 3 runs for n ≈ 2k and 20k, one run for 200k; mathjs slu (order 1 = AMD on A+Aᵀ, threshold 1)')
+console.log('      n   nnz(A)    order ms  symbolic ms  LDLᵀ num ms    nnz(L)   LU num ms   nnz(L+U)   max|Ax-b|   mathjs slu ms')
+const totals = new Map<number, number>()
 for (const m of [45, 141, 447]) {
   const t = grid(m)
   const n = m * m
-  let t0 = performance.now()
+  const reps = n > 100000 ? 1 : 3
   const pattern = new CscPattern(n, n, t)
   const A = pattern.fill(t)
-  const { ptr, adj } = symmetricAdjacency(pattern)
-  const perm = nestedDissection(ptr, adj)
-  const tOrder = ms(t0)
-  t0 = performance.now()
-  const sym = new LdltSymbolic(pattern, perm)
-  const tSym = ms(t0)
-  t0 = performance.now()
-  const r = ldltFactor(A, sym)
-  const tNum = ms(t0)
+  const order = best(reps, () => { const { ptr, adj } = symmetricAdjacency(pattern); return nestedDissection(ptr, adj) })
+  const perm = order.value
+  const sym = best(reps, () => new LdltSymbolic(pattern, perm))
+  const num = best(reps, () => ldltFactor(A, sym.value))
+  const r = num.value
   if (!r.ok) throw new Error(r.reason)
   const b = new Float64Array(n).fill(1)
   const x = r.factor.solve(b)
-  t0 = performance.now()
-  const lu = luFactor(A, perm)
-  const tLu = ms(t0)
-  if (!lu.ok) throw new Error(lu.reason)
-  const xl = lu.factor.solve(b)
-  console.log(`${String(n).padStart(7)} ${String(A.colPtr[n]).padStart(8)} ${fmt(tOrder)}   ${fmt(tSym)}    ${fmt(tNum)}  ${String(sym.nnzL).padStart(9)}  ${fmt(tLu)}  ${String(lu.factor.nnz).padStart(9)}   ${Math.max(residual(A, x, b), residual(A, xl, b)).toExponential(1)}`)
-  if (m === 45) smallTimes = { ldlt: tOrder + tSym + tNum, lu: tOrder + tLu }
+  const lu = best(reps, () => luFactor(A, perm))
+  if (!lu.value.ok) throw new Error(lu.value.reason)
+  const xl = lu.value.factor.solve(b)
+  let mj = '        —'
+  if (n < 100000) {
+    const M = toMathjs(A)
+    const f = best(reps, () => slu(M as Parameters<typeof slu>[0], 1, 1))
+    mj = fmt(f.ms)
+    const xm = (lusolve(f.value, Array.from(b)) as unknown as { toArray(): number[][] }).toArray().map((row) => row[0]!)
+    const dev = Math.max(...xm.map((v, i) => Math.abs(v - x[i]!)))
+    if (dev > 1e-8) throw new Error(`mathjs and LDLᵀ disagree by ${dev}`)
+    totals.set(n, f.ms / (order.ms + sym.ms + num.ms))
+  }
+  console.log(`${String(n).padStart(7)} ${String(A.colPtr[n]).padStart(8)} ${fmt(order.ms)}   ${fmt(sym.ms)}    ${fmt(num.ms)}  ${String(sym.value.nnzL).padStart(9)}  ${fmt(lu.ms)}  ${String(lu.value.factor.nnz).padStart(9)}   ${Math.max(residual(A, x, b), residual(A, xl, b)).toExponential(1)}   ${mj}`)
 }
+for (const [n, ratio] of totals) console.log(`mathjs slu / typed-array LDLᵀ (order+symbolic+numeric) at n = ${n}: ${ratio.toFixed(1)}×`)
 
-// Comparison at the small size, same run.
+// Dense ml-matrix at the small size, same run.
 const m = 45, n = m * m
-const t = grid(m)
-const dense = tripletsToDense(t)
+const dense = tripletsToDense(grid(m))
 let t0 = performance.now()
-const f = slu(sparse(dense.to2DArray()), 1, 1)
-const tSlu = ms(t0)
-t0 = performance.now()
-lusolve(f, Array.from({ length: n }, () => 1))
-const tSluSolve = ms(t0)
-t0 = performance.now()
 const d = new LuDecomposition(dense)
 const tDense = ms(t0)
 d.solve(Matrix.columnVector(Array.from({ length: n }, () => 1)))
-console.log(`\nat n = ${n}:`)
-console.log(`  typed-array LDLᵀ (order+symbolic+numeric) ${smallTimes!.ldlt.toFixed(1)} ms`)
-console.log(`  typed-array LU   (order+numeric)          ${smallTimes!.lu.toFixed(1)} ms`)
-console.log(`  mathjs slu (order 1 = AMD of A+Aᵀ)         ${tSlu.toFixed(1)} ms  (lusolve ${tSluSolve.toFixed(1)} ms)  ratio to LDLᵀ ${(tSlu / smallTimes!.ldlt).toFixed(1)}×`)
-console.log(`  ml-matrix dense LU                         ${tDense.toFixed(1)} ms  ratio to LDLᵀ ${(tDense / smallTimes!.ldlt).toFixed(1)}×`)
+console.log(`ml-matrix dense LU at n = ${n}: ${tDense.toFixed(1)} ms`)

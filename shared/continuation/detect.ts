@@ -108,7 +108,6 @@ export function detectInStep(ctx: Ctx, seg: Segment, first: { y: Float64Array; t
   if (Number.isFinite(o.lambdaMax)) bound((a) => a.y[n]! - o.lambdaMax, `λ reaches its upper bound ${o.lambdaMax}`)
   if (Number.isFinite(o.lambdaMin)) bound((a) => a.y[n]! - o.lambdaMin, `λ reaches its lower bound ${o.lambdaMin}`)
   for (const b of o.stateBounds) {
-    if (b.component >= n) throw new Error(`continuation: state bound on component ${b.component} but n = ${n}`)
     if (b.max !== undefined) bound((a) => a.y[b.component]! - b.max!, `u[${b.component}] reaches its upper bound ${b.max}`)
     if (b.min !== undefined) bound((a) => a.y[b.component]! - b.min!, `u[${b.component}] reaches its lower bound ${b.min}`)
   }

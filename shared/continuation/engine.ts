@@ -55,6 +55,7 @@ export class Continuation {
     if (start.u.length !== n) throw new Error(`continuation: start.u has length ${start.u.length}, expected ${n}`)
     if (!Array.from(start.u).every(Number.isFinite) || !Number.isFinite(start.lambda)) throw new Error('continuation: start point must be finite')
     if (start.tangent && start.tangent.length !== n + 1) throw new Error(`continuation: start.tangent must have length ${n + 1}`)
+    for (const b of this.options.stateBounds) if (b.component >= n) throw new Error(`continuation: state bound on component ${b.component} but n = ${n}`)
     const symmetric = problem.symmetric === true
     this.solver = new BorderedSolver(n, symmetric, o.solver, o.borderingTolerance)
     this.ctx = {
