@@ -3,7 +3,11 @@
  * Newton on the positions (see ./newton.ts). The first vertex is pinned (translations); in the
  * plane the scale is fixed too, by keeping the projection of the first non-loop edge on its
  * starting direction (B is invariant under dilation). The lattice and the wings stay fixed.
- * Steps are accepted when ‖B‖ or the total length L decreases: L is convex in p (a sum of norms
+ * The Newton matrix is regularised as J − μI with μ = ‖B‖/ℓ̄ (D.-H. Li, M. Fukushima, L. Qi,
+ * N. Yamashita, "Regularized Newton methods for convex minimization problems with singular
+ * solutions", Comput. Optim. Appl. 28, 2004): −J is positive semidefinite, so the step stays a
+ * descent direction of L and converges fast even where the balanced drawings form a family
+ * (non-rigid patterns). Steps are accepted when ‖B‖ or the total length L decreases: L is convex in p (a sum of norms
  * of affine maps minus a linear term), so the balanced drawings are its minima and the damped
  * Newton iteration on ∇L = −B with an L line search converges from any start that does not
  * collapse an edge (Dennis–Schnabel 1983, Thm 6.3.3).
@@ -77,7 +81,8 @@ export function solveBalance(
       reason: `the open wings' directions sum to (${wx.toPrecision(4)}, ${wy.toPrecision(4)}), not 0: no drawing can balance`,
     }
   }
-  const minLength = o.collapseFraction * meanEdgeLength(m, p0, lat)
+  const lengthScale = meanEdgeLength(m, p0, lat)
+  const minLength = o.collapseFraction * lengthScale
   // free unknowns: every coordinate except vertex 0's
   const embed = (x: Float64Array) => { const p = Float64Array.from(p0); p.set(x, 2); return p }
   let ref = -1
@@ -99,7 +104,12 @@ export function solveBalance(
       return Float64Array.from([...balanceResidual(m, p, lat).subarray(2), ...scaleRow(p)])
     },
     jacobian: (x) => {
-      const j = tripletsToDense(balanceJacobian(m, embed(x), lat)).subMatrix(2, n - 1, 2, n - 1)
+      const p = embed(x)
+      const j = tripletsToDense(balanceJacobian(m, p, lat)).subMatrix(2, n - 1, 2, n - 1)
+      // regularised Newton (Li, Fukushima, Qi, Yamashita 2004): J − μI with μ = ‖B‖/ℓ̄ keeps
+      // the step defined and fast on patterns whose balanced drawings are not isolated
+      const mu = fullNorm(p) / lengthScale
+      for (let i = 0; i < n - 2; i++) j.set(i, i, j.get(i, i) - mu)
       if (ref < 0) return j
       const row = new Array<number>(n - 2).fill(0)
       for (const [v, s] of [[refTo, 1], [refFrom, -1]] as const) {
@@ -129,7 +139,7 @@ export function solveBalance(
     shortest.length < COLLAPSE_REPORT_FRACTION * meanEdgeLength(m, positions, lat)
     || lengthFunctional(m, collapsedCandidate(m, positions, lat, shortest.edge), lat) <= lengthFunctional(m, positions, lat))) {
     reason = `edge '${m.edgeIds[shortest.edge]}' is collapsing (length ${shortest.length.toPrecision(3)}): `
-      + `the least-length drawing has a zero-length edge; ${result.reason}`
+      + `a least-length drawing with a zero-length edge is in reach; ${result.reason}`
   }
   return {
     converged: result.converged,

@@ -18,8 +18,9 @@ export interface NewtonProblem {
   admissible?: (x: Float64Array) => boolean
   /**
    * Optional merit function with its directional derivative along the Newton step (negative
-   * for a descent direction). A step is accepted when ‖F‖ or the merit decreases sufficiently;
-   * a convex merit (total length, for balance) makes the solve global.
+   * for a descent direction). A step is accepted when ‖F‖ or the merit decreases sufficiently
+   * (‖F‖ alone can stall where the merit still descends, and the reverse: measured on the
+   * balance solve, accepting either converged on more patterns than the merit alone).
    */
   merit?: { value: (x: Float64Array) => number, slope: (x: Float64Array, dx: Float64Array) => number }
 }
@@ -58,7 +59,7 @@ function newtonStep(j: Matrix, f: Float64Array): Float64Array {
 /** Runs damped Newton from x0. */
 export function dampedNewton(problem: NewtonProblem, s: NewtonSettings): NewtonResult {
   const norm = problem.norm ?? ((x: Float64Array) => l2(problem.residual(x)))
-  const ok = problem.admissible ?? (() => true)
+  const admissible = problem.admissible ?? (() => true)
   let x = Float64Array.from(problem.x0)
   let r = norm(x)
   for (let it = 0; it < s.maxIterations; it++) {
@@ -76,10 +77,12 @@ export function dampedNewton(problem: NewtonProblem, s: NewtonSettings): NewtonR
     let t = 1, accepted = false
     for (let k = 0; k < 60; k++, t /= 2) {
       const trial = x.map((xi, i) => xi + t * dx[i]!)
-      if (!ok(trial)) continue
+      if (!admissible(trial)) continue
       const rt = norm(trial)
+      const normDown = rt < (1 - 1e-4 * t) * r
       const meritDown = merit !== undefined && slope < 0 && merit.value(trial) <= m0 + 1e-4 * t * slope
-      if (rt < (1 - 1e-4 * t) * r || meritDown) { x = trial; r = rt; accepted = true; break }
+      const accept = normDown || meritDown
+      if (accept) { x = trial; r = rt; accepted = true; break }
     }
     if (!accepted) {
       return {

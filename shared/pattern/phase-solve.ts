@@ -14,11 +14,11 @@ import { inertiaOf, reducedSpectrum, tripletsToDense, type Inertia } from './spe
 export interface PhaseSolveOptions {
   /** Newton iterations at most (default 60). */
   maxIterations?: number
-  /** Converged when ‖G‖₂ / K̄ ≤ tolerance (default 1e-10). */
+  /** Converged when ‖G‖₂ / K̄ ≤ tolerance (default 1e-12). */
   tolerance?: number
 }
 
-export const DEFAULT_PHASE_SOLVE_OPTIONS: Required<PhaseSolveOptions> = { maxIterations: 60, tolerance: 1e-10 }
+export const DEFAULT_PHASE_SOLVE_OPTIONS: Required<PhaseSolveOptions> = { maxIterations: 60, tolerance: 1e-12 }
 
 /** Fills defaults and rejects nonsense. */
 export function resolvePhaseSolveOptions(o: PhaseSolveOptions = {}): Required<PhaseSolveOptions> {

@@ -67,7 +67,7 @@ describe('Fermat–Torricelli through the torus pattern', () => {
   it('collapses the edge at a corner whose angle exceeds 120° (the vertex sits at the obtuse corner)', () => {
     // angle at 0 between ω1 = (1, 0) and ω2 = (−0.6, 0.5) is about 140°: the Fermat point is the corner 0
     const m = compilePattern(fermatDoc([1, 0], [-0.6, 0.5], [0.2, 0.3]))
-    const r = solveBalance(m, m.positions, m.lattice)
+    const r = solveBalance(m, m.positions, m.lattice, { maxIterations: 200 })
     expect(r.converged).toBe(false)
     expect(r.reason).toMatch(/collapsing/)
     expect(m.edgeIds[r.shortestEdge.edge]).toBe('e0') // the edge to the corner 0
@@ -75,7 +75,8 @@ describe('Fermat–Torricelli through the torus pattern', () => {
     const cornerLength = 1 + Math.hypot(-0.6, 0.5)
     const L = totalLength(m, r.positions, m.lattice)
     expect(L).toBeGreaterThanOrEqual(cornerLength - 1e-12)
-    expect(L - cornerLength).toBeLessThan(0.05)
+    reportDeviation('obtuse Fermat triangle: length above the corner value', 'classical (vertex at the obtuse corner)', L - cornerLength)
+    expect(L - cornerLength).toBeLessThan(1e-7)
   })
 })
 

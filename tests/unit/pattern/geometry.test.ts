@@ -118,3 +118,17 @@ describe('balancePattern keeps the rotation read from the rough drawing', () => 
     expect(analyzePattern(r.document).verdicts.cyclicOrder.ok).toBe(false)
   })
 })
+
+describe('balance solve on a non-rigid pattern', () => {
+  it('balances a perturbed square grid (balanced drawings form a family) and keeps its two parallel redrawings', async () => {
+    const { balancePattern } = await import('../../../shared/pattern/balance-solve')
+    const doc = structuredClone(findPatternExample('square-grid')!.document)
+    const rnd = seeded(3)
+    for (const v of doc.vertices.slice(1)) v.position = [v.position[0] + 0.3 * (rnd() - 0.5), v.position[1] + 0.3 * (rnd() - 0.5)]
+    const r = balancePattern(doc)
+    expect(r.converged).toBe(true)
+    const rep = analyzePattern(r.document)
+    expect(rep.verdicts.balance.ok).toBe(true)
+    expect(rep.verdicts.rigidity.inertia!.zero).toBe(2) // four lines − two translations
+  })
+})
