@@ -180,7 +180,7 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
   const flipped = margins.flatMap((x, v) => (x < 0 ? [m.vertexIds[v]!] : []))
   const lengths = Array.from(edgeLengths(m, p, lat))
   const mean = meanEdgeLength(m, p, lat)
-  const minLength = lengths.length ? Math.min(...lengths) : Infinity
+  const minLength = lengths.length ? Math.min(...lengths) : null
   const short = lengths.flatMap((l, e) => (l <= o.collapseTolerance * mean ? [m.edgeIds[e]!] : []))
   const [wx, wy] = openWingSum(m)
   const b = balanceResidual(m, p, lat)
@@ -199,7 +199,8 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
       } : {}),
     },
     edgeLengths: {
-      ok: short.length === 0, minLength, relativeMinLength: minLength / mean, tolerance: o.collapseTolerance,
+      ok: short.length === 0, minLength, relativeMinLength: minLength === null ? null : minLength / mean,
+      tolerance: o.collapseTolerance,
       ...(short.length ? { witness: { edges: short }, explanation: 'Some edges have collapsed to (nearly) zero length.' } : {}),
     },
     openWings: {

@@ -59,9 +59,10 @@ export interface CyclicOrderVerdict extends VerdictBase {
 }
 
 export interface EdgeLengthVerdict extends VerdictBase {
-  minLength: number
-  /** minLength / mean length. */
-  relativeMinLength: number
+  /** Shortest closed edge (null without closed edges). */
+  minLength: number | null
+  /** minLength / mean length (null without closed edges). */
+  relativeMinLength: number | null
   tolerance: number
   witness?: { edges: string[] }
 }

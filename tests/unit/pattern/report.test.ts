@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest'
 import { analyzePattern } from '../../../shared/pattern/analyze'
 import { balancePattern } from '../../../shared/pattern/balance-solve'
 import { PATTERN_EXAMPLES } from '../../../shared/examples'
+import { parsePatternDocument } from '../../../shared/types/pattern'
 
 const expectedFailing: Record<string, string[]> = {
   'square-pair': [],
@@ -40,6 +41,21 @@ describe('analyzePattern on the examples', () => {
     const b = balancePattern(ex.document)
     expect(b.converged).toBe(true)
     expect(analyzePattern(b.document).summary.failing).toEqual(['degrees', 'orientable'])
+  })
+
+  it('a single tower with four open wings: genus 0, four ends, every verdict holds, JSON-safe', () => {
+    // Scherk's singly periodic surface: its quotient by the period is a sphere with four ends
+    // (H. F. Scherk 1835; from memory)
+    const doc = parsePatternDocument({
+      format: 'wingfold-pattern', version: 1, name: 'one tower', space: 'plane',
+      vertices: [{ id: 'a', position: [0, 0] }], edges: [],
+      wings: [[1, 0], [0, 1], [-1, 0], [0, -1]].map((direction, i) => ({ id: `w${i}`, vertex: 'a', direction })),
+    })
+    const r = analyzePattern(doc)
+    expect(r.summary.ok).toBe(true)
+    expect([r.summary.predictedGenus, r.summary.openEnds]).toEqual([0, 4])
+    expect(r.verdicts.edgeLengths.minLength).toBeNull()
+    expect(JSON.parse(JSON.stringify(r))).toEqual(r)
   })
 
   it('rejects nonsense options with a clear message', () => {
