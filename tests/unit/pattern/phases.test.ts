@@ -71,6 +71,19 @@ describe('twisted states on a ring (Wiley–Strogatz–Girvan 2006)', () => {
   })
 })
 
+describe('phase solve with period phases', () => {
+  it('square pair: ψ_b = (α1 + α2)/2 balances (the four sines cancel in pairs), found from ψ = 0', () => {
+    // φ = ψ_b, ψ_b − α1, ψ_b − α2, ψ_b − α1 − α2; with ψ_b = (α1 + α2)/2 they are ±(α1 + α2)/2 and
+    // ±(α1 − α2)/2, so Σ sin φ = 0 (derived by hand)
+    const m = torusModel([1, 0], [0, 1], { a: [0, 0], b: [0.5, 0.5] },
+      [['a', 'b', [0, 0]], ['a', 'b', [-1, 0]], ['a', 'b', [0, -1]], ['a', 'b', [-1, -1]]])
+    const alpha: [number, number] = [1.2, 0.4]
+    const r = solvePhases(m, new Float64Array(2), alpha, m.weight)
+    expect(r.converged).toBe(true)
+    expect(distanceToZeroMod2Pi(r.psi[1]! - 0.8)).toBeLessThan(1e-12)
+  })
+})
+
 describe('phase report', () => {
   it('flags patterns whose phase differences are all 0 or π (mirror planes), and not the twisted ones', () => {
     const { positions, edges } = ring(6)
