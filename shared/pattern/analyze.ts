@@ -16,6 +16,7 @@ import { distanceToMirror, distanceToZeroMod2Pi, phaseDifferences, phaseResidual
 import type { PatternReport, PatternVerdicts, VerdictName } from './report'
 import { analyzeRigidity } from './rigidity'
 import { cycleShifts, openFaces, sublatticeIndex } from './shifts'
+import { maxOf, minOf, norm2 } from './vector'
 
 /** Tolerances and limits of the analysis; every one optional, defaults below. */
 export interface AnalyzeOptions {
@@ -180,18 +181,18 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
   const flipped = margins.flatMap((x, v) => (x < 0 ? [m.vertexIds[v]!] : []))
   const lengths = Array.from(edgeLengths(m, p, lat))
   const mean = meanEdgeLength(m, p, lat)
-  const minLength = lengths.length ? Math.min(...lengths) : null
+  const minLength = lengths.length ? minOf(lengths) : null
   const short = lengths.flatMap((l, e) => (l <= o.collapseTolerance * mean ? [m.edgeIds[e]!] : []))
   const [wx, wy] = openWingSum(m)
   const b = balanceResidual(m, p, lat)
   const residuals: [number, number][] = m.vertexIds.map((_, v) => [b[2 * v]!, b[2 * v + 1]!])
   const norms = residuals.map(r => Math.hypot(...r))
-  const residualNorm = Math.hypot(...b)
+  const residualNorm = norm2(b)
   const rig = analyzeRigidity(m, p, lat, { tolerance: o.rigidityTolerance, maxDenseVertices: o.maxDenseVertices })
   const { weakestMode, rigid, ...rigNumbers } = rig
   return {
     cyclicOrder: {
-      ok: flipped.length === 0, minMargin: margins.length ? Math.min(...margins) : Math.PI, margins,
+      ok: flipped.length === 0, minMargin: margins.length ? minOf(margins) : Math.PI, margins,
       explicit: m.rotationExplicit, tolerance: o.orderTolerance,
       ...(flipped.length ? {
         witness: { vertices: flipped },
@@ -211,7 +212,7 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
         : {}),
     },
     balance: {
-      ok: residualNorm <= o.balanceTolerance, residualNorm, maxVertexResidual: Math.max(0, ...norms), residuals,
+      ok: residualNorm <= o.balanceTolerance, residualNorm, maxVertexResidual: Math.max(0, maxOf(norms)), residuals,
       tolerance: o.balanceTolerance,
       ...(residualNorm > o.balanceTolerance ? {
         witness: { vertices: norms.flatMap((n, v) => (n > o.balanceTolerance / Math.sqrt(m.nVertices) ? [m.vertexIds[v]!] : [])) },
@@ -237,12 +238,12 @@ function phaseVerdicts(m: PatternModel, faces: Faces, o: Required<AnalyzeOptions
   const badFaces = defects.flatMap((d, f) => (d > o.mirrorTolerance ? [f] : []))
   const g = phaseResidual(m, m.psi, m.alpha, m.weight)
   const kBar = meanWeight(m.weight)
-  const gNorm = Math.hypot(...g) / kBar
+  const gNorm = norm2(g) / kBar
   const pr = analyzePhaseRigidity(m, m.psi, m.alpha, m.weight, o.phaseRigidityTolerance, o.maxDenseVertices)
   const { weakestMode, rigid, ...prNumbers } = pr
   return {
     phaseClosure: {
-      ok: badFaces.length === 0, maxDefect: Math.max(0, ...defects), tolerance: o.mirrorTolerance,
+      ok: badFaces.length === 0, maxDefect: Math.max(0, maxOf(defects)), tolerance: o.mirrorTolerance,
       ...(badFaces.length ? {
         witness: { faces: badFaces },
         explanation: 'Around some faces the phase differences do not add up to a multiple of 2π.',

@@ -19,6 +19,7 @@ import type { Lattice, PatternModel } from './model'
 import { compilePattern } from './model'
 import { dampedNewton } from './newton'
 import { tripletsToDense } from './spectrum'
+import { norm2 } from './vector'
 
 /** Options of the balance solve. */
 export interface BalanceOptions {
@@ -73,7 +74,7 @@ export function solveBalance(
   const o = resolveBalanceOptions(options)
   const n = 2 * m.nVertices
   const [wx, wy] = openWingSum(m)
-  const fullNorm = (p: Float64Array) => Math.hypot(...balanceResidual(m, p, lat))
+  const fullNorm = (p: Float64Array) => norm2(balanceResidual(m, p, lat))
   if (Math.hypot(wx, wy) > o.tolerance) {
     return {
       converged: false, iterations: 0, residualNorm: fullNorm(p0), positions: Float64Array.from(p0),
@@ -94,14 +95,18 @@ export function solveBalance(
     ? [p0[2 * refTo]! - p0[2 * refFrom]!, p0[2 * refTo + 1]! - p0[2 * refFrom + 1]!]
     : [0, 0]
   const l0 = Math.hypot(d0[0]!, d0[1]!)
-  const scaleRow = (p: Float64Array) => ref < 0 ? [] : [
-    ((p[2 * refTo]! - p[2 * refFrom]!) * d0[0]! + (p[2 * refTo + 1]! - p[2 * refFrom + 1]!) * d0[1]!) / l0 - l0,
-  ]
+  // plane scale equation: the projection of the reference edge on its start direction stays l0
+  const scaleResidual = (p: Float64Array) =>
+    ((p[2 * refTo]! - p[2 * refFrom]!) * d0[0]! + (p[2 * refTo + 1]! - p[2 * refFrom + 1]!) * d0[1]!) / l0 - l0
   const result = dampedNewton({
     x0: p0.slice(2),
     residual: (x) => {
       const p = embed(x)
-      return Float64Array.from([...balanceResidual(m, p, lat).subarray(2), ...scaleRow(p)])
+      const b = balanceResidual(m, p, lat).subarray(2)
+      const out = new Float64Array(b.length + (ref < 0 ? 0 : 1))
+      out.set(b)
+      if (ref >= 0) out[b.length] = scaleResidual(p)
+      return out
     },
     jacobian: (x) => {
       const p = embed(x)

@@ -4,6 +4,7 @@
  */
 import type { Lattice, PatternModel } from './model'
 import { halfEdgeDirection } from './model'
+import { minOf } from './vector'
 
 /** Edge vectors of the closed edges (2E, interleaved), into `out` (allocated when absent). */
 export function edgeVectors(
@@ -30,7 +31,7 @@ export function edgeLengths(
 
 /** Shortest closed edge length (Infinity without closed edges): reaching 0 is a collapse. */
 export function minEdgeLength(m: PatternModel, p: Float64Array, lat: Lattice): number {
-  return Math.min(...edgeLengths(m, p, lat))
+  return minOf(edgeLengths(m, p, lat))
 }
 
 /** Mean closed edge length (1 without closed edges): the length scale of the drawing. */

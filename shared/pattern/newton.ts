@@ -6,6 +6,7 @@
  * consistent over-determined systems such as the plane balance with the scale fixed.
  */
 import { LuDecomposition, Matrix, solve } from 'ml-matrix'
+import { norm2 } from './vector'
 
 /** The problem: unknowns x, equations F(x), dense Jacobian ∂F/∂x. */
 export interface NewtonProblem {
@@ -40,12 +41,6 @@ export interface NewtonSettings {
   tolerance: number
 }
 
-function l2(v: Float64Array): number {
-  let s = 0
-  for (const x of v) s += x * x
-  return Math.sqrt(s)
-}
-
 /** Newton step −J⁻¹F (LU when square and regular, otherwise SVD least squares). */
 function newtonStep(j: Matrix, f: Float64Array): Float64Array {
   const rhs = Matrix.columnVector(Array.from(f, x => -x))
@@ -58,7 +53,7 @@ function newtonStep(j: Matrix, f: Float64Array): Float64Array {
 
 /** Runs damped Newton from x0. */
 export function dampedNewton(problem: NewtonProblem, s: NewtonSettings): NewtonResult {
-  const norm = problem.norm ?? ((x: Float64Array) => l2(problem.residual(x)))
+  const norm = problem.norm ?? ((x: Float64Array) => norm2(problem.residual(x)))
   const admissible = problem.admissible ?? (() => true)
   let x = Float64Array.from(problem.x0)
   let r = norm(x)

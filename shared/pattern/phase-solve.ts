@@ -9,6 +9,7 @@ import type { PatternModel } from './model'
 import { dampedNewton } from './newton'
 import { phaseJacobian, phaseResidual } from './phases'
 import { inertiaOf, reducedSpectrum, tripletsToDense, type Inertia } from './spectrum'
+import { norm2 } from './vector'
 
 /** Options of the phase solve. */
 export interface PhaseSolveOptions {
@@ -56,7 +57,7 @@ export function solvePhases(
     x0: psi0.slice(1),
     residual: x => phaseResidual(m, embed(x), alpha, weights).slice(1),
     jacobian: x => tripletsToDense(phaseJacobian(m, embed(x), alpha, weights)).subMatrix(1, V - 1, 1, V - 1),
-    norm: x => Math.hypot(...phaseResidual(m, embed(x), alpha, weights)) / kBar,
+    norm: x => norm2(phaseResidual(m, embed(x), alpha, weights)) / kBar,
   }, o)
   return {
     converged: r.converged, iterations: r.iterations, residualNorm: r.residualNorm, psi: embed(r.x),

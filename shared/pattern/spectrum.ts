@@ -7,6 +7,7 @@
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
 import type { Triplets } from '../linalg/triplets'
+import { norm2 } from './vector'
 
 /** Counts of negative, zero and positive eigenvalues. */
 export interface Inertia {
@@ -54,7 +55,7 @@ function trivialReflectors(n: number, trivial: Float64Array[]): Float64Array[] {
     const v = new Float64Array(n)
     for (let i = j; i < n; i++) v[i] = x[i]!
     v[j]! += x[j]! >= 0 ? norm : -norm
-    const vn = Math.hypot(...v)
+    const vn = norm2(v)
     for (let i = j; i < n; i++) v[i]! /= vn
     reflectors.push(v)
   }
@@ -104,7 +105,7 @@ export function reducedSpectrum(j: Triplets, trivial: Float64Array[]): ReducedSp
   const mode = new Float64Array(n)
   for (let r = 0; r < dimension; r++) mode[k + r] = eig.eigenvectorMatrix.get(r, weakest)
   for (let i = k - 1; i >= 0; i--) applyReflector(hs[i]!, mode)
-  const norm = Math.hypot(...mode)
+  const norm = norm2(mode)
   return {
     dimension,
     eigenvalues: order.map(i => values[i]!),
