@@ -1,0 +1,99 @@
+/**
+ * From a pattern document and family settings to an engine run: the problem, the start point
+ * (balanced at the start value of λ when asked) and the engine options.
+ */
+import type { ContinuationOptions, ContinuationProblem, ContinuationStart } from '../continuation/types'
+import { solveBalance } from '../pattern/balance-solve'
+import { compilePattern, type PatternModel } from '../pattern/model'
+import { solvePhases } from '../pattern/phase-solve'
+import { LATTICE_PATH_KINDS, PHASE_PATH_KINDS, type FamilySettings } from '../types/family'
+import type { PatternDocument } from '../types/pattern'
+import { latticePath } from './lattice-paths'
+import { phasePath, phaseProblem } from './phase'
+import { planeWingProblem } from './plane'
+import { torusLatticeProblem } from './torus'
+
+/** The start solve uses dense Newton (pattern core); above this many vertices the engine's own sparse Newton at fixed λ does it. */
+export const DENSE_START_SOLVE_MAX_VERTICES = 1500
+
+/** A family ready to run. */
+export interface FamilySetup {
+  model: PatternModel
+  /** 'drawing' (lattice or wing paths: u holds positions) or 'phase' (u holds phases). */
+  unknowns: 'drawing' | 'phase'
+  problem: ContinuationProblem
+  start: ContinuationStart
+  options: ContinuationOptions
+  /** Why the start could not be balanced (the engine still tries its own Newton). */
+  startNote?: string
+}
+
+const isLattice = (k: string): boolean => (LATTICE_PATH_KINDS as readonly string[]).includes(k)
+const isPhase = (k: string): boolean => (PHASE_PATH_KINDS as readonly string[]).includes(k)
+
+/** The problem alone (no start solve): used by the runner and by point verification. */
+export function familyProblem(doc: PatternDocument, settings: FamilySettings, model = compilePattern(doc)): { problem: ContinuationProblem; lambda0: number; unknowns: 'drawing' | 'phase' } {
+  const kind = settings.path.kind
+  const ev = { collapseTolerance: settings.stop.collapseTolerance, orderFlip: settings.stop.orderFlip, terminal: settings.stop.stopAtEvents }
+  if (isLattice(kind)) {
+    if (model.space !== 'torus') throw new Error(`families: the ${kind} path needs a torus pattern`)
+    const path = latticePath(settings.path, model.lattice)
+    return { problem: torusLatticeProblem(model, path, ev).problem, lambda0: path.lambda0, unknowns: 'drawing' }
+  }
+  if (isPhase(kind)) {
+    if (model.space !== 'torus' && (kind === 'alpha1' || kind === 'alpha2' || kind === 'alpha-line')) throw new Error(`families: the ${kind} path needs a torus pattern`)
+    const path = phasePath(model, settings.path)
+    return { problem: phaseProblem(model, path).problem, lambda0: path.lambda0, unknowns: 'phase' }
+  }
+  if (settings.path.kind !== 'wing-rotation') throw new Error(`families: unknown path kind '${kind}'`)
+  return { problem: planeWingProblem(model, settings.path.rotate, settings.path.compensate, ev).problem, lambda0: 0, unknowns: 'drawing' }
+}
+
+/** Engine options from the settings; λ is bounded on the side of the target. */
+export function familyOptions(settings: FamilySettings, lambda0: number): ContinuationOptions {
+  const direction = settings.direction ?? (settings.to >= lambda0 ? 'increase' : 'decrease')
+  const s = settings.step
+  const o: ContinuationOptions = {
+    direction,
+    maxPoints: settings.stop.maxPoints,
+    stopAtSpecialPoint: settings.stop.stopAtSpecialPoint,
+    locateTolerance: settings.stop.locateTolerance,
+    ...(s.initial !== undefined ? { initialStep: s.initial } : {}),
+    ...(s.min !== undefined ? { minStep: s.min } : {}),
+    ...(s.max !== undefined ? { maxStep: s.max } : {}),
+    ...(s.maxNewtonIterations !== undefined ? { maxNewtonIterations: s.maxNewtonIterations } : {}),
+  }
+  if (settings.to > lambda0) o.lambdaMax = settings.to
+  else if (settings.to < lambda0) o.lambdaMin = settings.to
+  return o
+}
+
+/** Builds the problem, balances the start (small patterns) and fills the engine options. */
+export function setupFamily(doc: PatternDocument, settings: FamilySettings): FamilySetup {
+  const model = compilePattern(doc)
+  const { problem, lambda0, unknowns } = familyProblem(doc, settings, model)
+  const V = model.nVertices
+  let u: Float64Array
+  let startNote: string | undefined
+  const small = V <= DENSE_START_SOLVE_MAX_VERTICES
+  if (unknowns === 'phase') {
+    const path = phasePath(model, settings.path)
+    u = model.psi.slice(1)
+    if (settings.balanceFirst && small) {
+      const r = solvePhases(model, model.psi, path.alpha(lambda0), path.weights(lambda0))
+      if (r.converged) u = r.psi.slice(1)
+      else startNote = `phase solve at the start did not converge: ${r.reason ?? ''}`
+    }
+  } else {
+    const lat = model.space === 'torus' ? latticePath(settings.path, model.lattice).at(lambda0).lattice : model.lattice
+    let p = model.positions
+    if (settings.balanceFirst && small) {
+      const r = solveBalance(model, p, lat)
+      if (r.converged) p = r.positions
+      else startNote = `balance solve at the start did not converge: ${r.reason ?? ''}`
+    }
+    u = new Float64Array(problem.n)
+    u.set(p.subarray(2, 2 * V))
+  }
+  return { model, unknowns, problem, start: { u, lambda: lambda0 }, options: familyOptions(settings, lambda0), ...(startNote ? { startNote } : {}) }
+}
