@@ -17,6 +17,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   check: () => import('./commands/check'),
   balance: () => import('./commands/balance'),
   schema: () => import('./commands/schema'),
+  follow: () => import('./commands/follow'),
 }
 
 async function help(): Promise<string> {
