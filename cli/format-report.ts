@@ -35,7 +35,6 @@ function details(r: PatternReport, name: VerdictName): string {
     case 'balance': return `|B| ${num(v.balance.residualNorm)} (tol ${num(v.balance.tolerance)})`
     case 'rigidity': {
       const g = v.rigidity
-      if (g.method === 'skipped') return `skipped: ${g.reason}`
       const i = g.inertia!
       return `σ_min·ℓ̄ ${num(g.sigmaMin)}, inertia −${i.negative}/0:${i.zero}/+${i.positive}, ${g.method}`
     }
@@ -43,7 +42,6 @@ function details(r: PatternReport, name: VerdictName): string {
     case 'phaseBalance': return `|G|/K̄ ${num(v.phaseBalance.residualNorm)}`
     case 'phaseRigidity': {
       const g = v.phaseRigidity
-      if (g.method === 'skipped') return `skipped: ${g.reason}`
       const i = g.inertia!
       return `σ_min/K̄ ${num(g.sigmaMin)}, inertia −${i.negative}/0:${i.zero}/+${i.positive}`
     }

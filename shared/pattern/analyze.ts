@@ -38,7 +38,7 @@ export interface AnalyzeOptions {
   orderTolerance?: number
   /** |Σ open wing directions| must not exceed this. Default 1e-9. */
   wingTolerance?: number
-  /** Dense spectra up to this many vertices; above, rigidity verdicts say 'skipped'. Default 400. */
+  /** Dense spectra up to this many vertices; above, sparse LDLᵀ + inverse iteration. Default 400. */
   maxDenseVertices?: number
 }
 
@@ -227,7 +227,6 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
         explanation: 'The drawing can be redrawn with every edge keeping its direction (a parallel redrawing), beyond translations'
           + (m.space === 'plane' ? ' and dilation.' : '.'),
       } : {}),
-      ...(rig.method === 'skipped' ? { explanation: `Rigidity was not computed: ${rig.reason}.` } : {}),
     },
   }
 }
@@ -263,7 +262,6 @@ function phaseVerdicts(m: PatternModel, faces: Faces, o: Required<AnalyzeOptions
         witness: { kernelMode: weakestMode },
         explanation: 'The vertical balance has a phase change beyond the global shift that keeps it to first order.',
       } : {}),
-      ...(pr.method === 'skipped' ? { explanation: `Phase rigidity was not computed: ${pr.reason}.` } : {}),
     },
   }
 }

@@ -10,6 +10,7 @@ import { dampedNewton } from './newton'
 import { phaseJacobian, phaseResidual } from './phases'
 import { inertiaOf, reducedSpectrum, tripletsToDense, type Inertia } from './spectrum'
 import { norm2 } from './vector'
+import { sparseRigidity } from './rigidity-sparse'
 
 /** Options of the phase solve. */
 export interface PhaseSolveOptions {
@@ -67,7 +68,8 @@ export function solvePhases(
 
 /** Phase rigidity of ψ: dimensionless σ_min, inertia, the weakest phase mode. */
 export interface PhaseRigidityResult {
-  method: 'dense' | 'skipped'
+  method: 'dense' | 'sparse'
+  /** Set when the sparse inverse iteration did not settle. */
   reason?: string
   dimension: number
   sigmaMin: number | null
@@ -80,19 +82,21 @@ export interface PhaseRigidityResult {
   tolerance: number
 }
 
-/** Phase rigidity by the dense reduced spectrum (skipped above maxDenseVertices). */
+/** Phase rigidity: dense reduced spectrum up to maxDenseVertices, sparse LDLᵀ + inverse iteration above. */
 export function analyzePhaseRigidity(
   m: PatternModel, psi: Float64Array, alpha: readonly [number, number], weights: Float64Array,
   tolerance: number, maxDenseVertices: number,
 ): PhaseRigidityResult {
+  const kBar = meanWeight(weights)
   if (m.nVertices > maxDenseVertices) {
+    const s = sparseRigidity(phaseJacobian(m, psi, alpha, weights), [new Float64Array(m.nVertices).fill(1)], [0], tolerance * kBar)
+    const sigmaMin = s.sigmaMin / kBar
     return {
-      method: 'skipped', dimension: 0, sigmaMin: null, inertia: null, eigenvalues: [], rigid: null,
-      weakestMode: [], tolerance,
-      reason: `${m.nVertices} vertices exceed maxDenseVertices = ${maxDenseVertices}; the sparse method is not connected yet`,
+      method: 'sparse', dimension: s.dimension, sigmaMin, inertia: s.inertia, eigenvalues: [],
+      rigid: sigmaMin > tolerance, weakestMode: Array.from(s.mode), tolerance,
+      ...(s.converged ? {} : { reason: `inverse iteration did not settle in ${s.iterations} steps` }),
     }
   }
-  const kBar = meanWeight(weights)
   const s = reducedSpectrum(phaseJacobian(m, psi, alpha, weights), [new Float64Array(m.nVertices).fill(1)])
   const eigenvalues = s.eigenvalues.map(l => l / kBar)
   const sigmaMin = s.dimension === 0 ? null : s.sigmaMin / kBar

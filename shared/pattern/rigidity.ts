@@ -11,23 +11,37 @@ import type { Lattice, PatternModel } from './model'
 import { balanceJacobian } from './balance'
 import { meanEdgeLength } from './geometry'
 import { inertiaOf, reducedSpectrum, type Inertia } from './spectrum'
+import { pinnedCoordinates, sparseRigidity } from './rigidity-sparse'
+
+/** [dx, dy] per vertex from an interleaved vector. */
+function pairs(x: ArrayLike<number>): [number, number][] {
+  const out: [number, number][] = []
+  for (let v = 0; v < x.length / 2; v++) out.push([x[2 * v]!, x[2 * v + 1]!])
+  return out
+}
 
 /** Options; defaults in `DEFAULT_RIGIDITY_OPTIONS`. */
 export interface RigidityOptions {
   /** Dimensionless threshold: rigid iff σ_min·ℓ̄ > tolerance; also the inertia's zero band. */
   tolerance?: number
-  /** Above this vertex count the dense method is skipped (result `method: 'skipped'`). */
+  /** 'auto' (default): dense up to `maxDenseVertices`, sparse above; or force one. */
+  method?: 'auto' | 'dense' | 'sparse'
+  /** Above this vertex count 'auto' uses the sparse method (rigidity-sparse.ts). */
   maxDenseVertices?: number
 }
 
 export const DEFAULT_RIGIDITY_OPTIONS: Required<RigidityOptions> = {
   tolerance: 1e-7,
+  method: 'auto',
   maxDenseVertices: 400,
 }
 
-/** Rigidity result; `method: 'skipped'` leaves the numbers null and says why in `reason`. */
+/**
+ * Rigidity result. `method: 'sparse'` reports σ_min, inertia and the weakest mode but not the
+ * whole spectrum (`eigenvalues` is empty); `reason` notes an inverse iteration that did not settle.
+ */
 export interface RigidityResult {
-  method: 'dense' | 'skipped'
+  method: 'dense' | 'sparse'
   reason?: string
   /** Number of trivial directions removed (2 torus, 3 plane; fewer if degenerate). */
   trivialDimension: number
@@ -51,6 +65,7 @@ export interface RigidityResult {
 export function resolveRigidityOptions(o: RigidityOptions = {}): Required<RigidityOptions> {
   const r = { ...DEFAULT_RIGIDITY_OPTIONS, ...o }
   if (!(r.tolerance > 0)) throw new Error('rigidity tolerance must be positive')
+  if (!['auto', 'dense', 'sparse'].includes(r.method)) throw new Error(`unknown rigidity method '${r.method}'`)
   if (!(Number.isInteger(r.maxDenseVertices) && r.maxDenseVertices >= 1)) {
     throw new Error('maxDenseVertices must be a positive integer')
   }
@@ -71,23 +86,29 @@ export function analyzeRigidity(
 ): RigidityResult {
   const o = resolveRigidityOptions(options)
   const lengthScale = meanEdgeLength(m, p, lat)
-  const base = { lengthScale, tolerance: o.tolerance, eigenvalues: [], weakestMode: [] }
-  if (m.nVertices > o.maxDenseVertices) {
+  const trivial = trivialMotions(m, p)
+  if (o.method === 'sparse' || (o.method === 'auto' && m.nVertices > o.maxDenseVertices)) {
+    const s = sparseRigidity(balanceJacobian(m, p, lat), trivial,
+      pinnedCoordinates(p, m.space === 'plane'), o.tolerance / lengthScale)
+    const sigmaMin = s.sigmaMin * lengthScale
     return {
-      ...base, method: 'skipped', trivialDimension: 0, dimension: 0,
-      sigmaMin: null, inertia: null, rigid: null,
-      reason: `${m.nVertices} vertices exceed maxDenseVertices = ${o.maxDenseVertices}; `
-        + 'the sparse method is not connected yet',
+      method: 'sparse',
+      ...(s.converged ? {} : { reason: `inverse iteration did not settle in ${s.iterations} steps` }),
+      trivialDimension: 2 * m.nVertices - s.dimension,
+      dimension: s.dimension,
+      sigmaMin,
+      lengthScale,
+      inertia: s.inertia,
+      eigenvalues: [],
+      rigid: sigmaMin > o.tolerance,
+      weakestMode: pairs(s.mode),
+      tolerance: o.tolerance,
     }
   }
-  const trivial = trivialMotions(m, p)
   const s = reducedSpectrum(balanceJacobian(m, p, lat), trivial)
   const eigenvalues = s.eigenvalues.map(l => l * lengthScale)
   const sigmaMin = s.dimension === 0 ? null : s.sigmaMin * lengthScale
-  const weakestMode: [number, number][] = []
-  for (let v = 0; v < s.weakestMode.length / 2; v++) {
-    weakestMode.push([s.weakestMode[2 * v]!, s.weakestMode[2 * v + 1]!])
-  }
+  const weakestMode = pairs(s.weakestMode)
   return {
     method: 'dense',
     trivialDimension: 2 * m.nVertices - s.dimension,

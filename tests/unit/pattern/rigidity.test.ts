@@ -73,12 +73,18 @@ describe('line nets: kernel dimension = number of lines − 2, kernel modes are 
 })
 
 describe('rigidity options', () => {
-  it('skips the dense method above maxDenseVertices and says so', () => {
+  it('switches to the sparse method above maxDenseVertices (same verdict and inertia)', () => {
     const m = compilePattern(findPatternExample('square-grid')!.document)
+    const dense = analyzeRigidity(m, m.positions, m.lattice)
     const r = analyzeRigidity(m, m.positions, m.lattice, { maxDenseVertices: 3 })
-    expect(r.method).toBe('skipped')
-    expect(r.rigid).toBeNull()
-    expect(r.reason).toMatch(/maxDenseVertices/)
+    expect(dense.method).toBe('dense')
+    expect(r.method).toBe('sparse')
+    expect(r.rigid).toBe(dense.rigid)
+    expect(r.inertia).toEqual(dense.inertia)
+  })
+  it('rejects an unknown method', () => {
+    const m = compilePattern(findPatternExample('square-pair')!.document)
+    expect(() => analyzeRigidity(m, m.positions, m.lattice, { method: 'qr' as 'dense' })).toThrow(/method/)
   })
   it('rejects a non-positive tolerance', () => {
     const m = compilePattern(findPatternExample('square-pair')!.document)
