@@ -2,6 +2,7 @@
  * From a pattern document and family settings to an engine run: the problem, the start point
  * (balanced at the start value of λ when asked) and the engine options.
  */
+import { CONTINUATION_DEFAULTS } from '../continuation/options'
 import type { ContinuationOptions, ContinuationProblem, ContinuationStart } from '../continuation/types'
 import { solveBalance } from '../pattern/balance-solve'
 import { compilePattern, type PatternModel } from '../pattern/model'
@@ -58,7 +59,8 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
     maxPoints: settings.stop.maxPoints,
     stopAtSpecialPoint: settings.stop.stopAtSpecialPoint,
     locateTolerance: settings.stop.locateTolerance,
-    ...(s.initial !== undefined ? { initialStep: s.initial } : {}),
+    // a given max (or min) below (above) the default first step moves the first step with it
+    initialStep: s.initial ?? Math.max(s.min ?? 0, Math.min(CONTINUATION_DEFAULTS.initialStep, s.max ?? Infinity)),
     ...(s.min !== undefined ? { minStep: s.min } : {}),
     ...(s.max !== undefined ? { maxStep: s.max } : {}),
     ...(s.maxNewtonIterations !== undefined ? { maxNewtonIterations: s.maxNewtonIterations } : {}),

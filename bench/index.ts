@@ -1,0 +1,102 @@
+/**
+ * `npm run bench`: speed of family continuation on periodic supercells of the demo net
+ * "square-pair" (V = 1k, 5k, 10k): one sparse factorisation of F_u, one continuation step, their
+ * ratio; the same step with dense LU (ml-matrix) for V ≤ 2k and the speed-up; the growth exponent
+ * of the step time from 1k to 10k. Targets are printed beside the figures; nothing is asserted.
+ *
+ * Family: α1 phase path (vertex phases, one pinned, n = V − 1; F_u a weighted graph Laplacian).
+ * Lattice paths are not used here: a balanced degree-4 vertex has two pairs of opposite edges,
+ * so balanced degree-4 nets are arrangements of straight lines, and in an m×m supercell every
+ * extra line can be shifted on its own (a parallel redrawing): F_u is singular for m > 1 and the
+ * lattice families of these supercells cannot be continued.
+ * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k)
+ */
+import { performance } from 'node:perf_hooks'
+import { createContinuation } from '../shared/continuation/engine'
+import { findPatternExample } from '../shared/examples'
+import { familyProblem } from '../shared/families/build'
+import { compilePattern } from '../shared/pattern/model'
+import { SparseSolver } from '../shared/linalg/solver'
+import { parseFamilySettings } from '../shared/types/family'
+import { supercell } from './supercell'
+
+const settings = parseFamilySettings({ path: { kind: 'alpha1' }, to: 1e6 })
+/** Fixed arclength step of the timed steps. */
+const STEP = Number(process.argv.find(a => a.startsWith('--step='))?.slice(7) ?? 2)
+const quick = process.argv.includes('--quick')
+
+/** Seeded uniform [0, 1) generator (mulberry32, common practice). */
+function mulberry32(seed: number): () => number {
+  let a = seed >>> 0
+  return () => {
+    a = (a + 0x6D2B79F5) >>> 0
+    let t = Math.imul(a ^ (a >>> 15), 1 | a)
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
+  }
+}
+
+/** Best of `reps` timings of f (ms). */
+function best(reps: number, f: () => void): number {
+  let t = Infinity
+  for (let r = 0; r < reps; r++) { const t0 = performance.now(); f(); t = Math.min(t, performance.now() - t0) }
+  return t
+}
+
+/** Times one factorisation of F_u at the start and the median of `steps` continuation steps. */
+function measure(m: number, method: 'auto' | 'dense', steps: number) {
+  const doc = supercell(findPatternExample('square-pair')!.document, m)
+  // seeded weights in [0.5, 1.5): without them the α1 branch is linear and Newton has nothing to do
+  const rand = mulberry32(20261202)
+  for (const e of doc.edges) e.weight = 0.5 + rand()
+  const model = compilePattern(doc)
+  const base = familyProblem(doc, settings, model).problem
+  // dense: plain LU (a symmetric dense factor would add an eigen-decomposition for the inertia)
+  const problem = method === 'dense' ? { ...base, symmetric: false } : base
+  const start = createContinuation(problem, { u: model.psi.subarray(1), lambda: model.alpha[0] }, { maxPoints: 1 })
+  if (!start.started) throw new Error(`start refused: ${start.finishReason}`)
+  const u0 = Float64Array.from(start.points[0]!.u), l0 = start.points[0]!.lambda
+  const J = problem.jacobian(u0, l0)
+  const solver = new SparseSolver({ method })
+  solver.factor(J.Fu, problem.symmetric === true) // ordering and symbolic analysis, reused along a run
+  const factorMs = best(method === 'dense' ? 1 : 3, () => { if (!solver.factor(J.Fu, problem.symmetric === true).ok) throw new Error('factorisation failed') })
+  // fixed step size so every step does comparable work
+  const run = createContinuation(problem, { u: u0, lambda: l0 }, { initialStep: STEP, maxStep: STEP, solver: { method } })
+  if (!run.started) throw new Error(`start refused: ${run.finishReason}`)
+  const times: number[] = []
+  for (let s = 0; s < steps && !run.done; s++) {
+    const t0 = performance.now()
+    const o = run.next()
+    if (o.status !== 'accepted') throw new Error(`step ${o.status}: ${o.reason}`)
+    times.push(performance.now() - t0)
+  }
+  times.sort((a, b) => a - b)
+  const stepMs = times[Math.floor(times.length / 2)]!
+  return { V: model.nVertices, n: problem.n, factorMs, stepMs, newton: run.points.slice(1).map(p => p.newtonIterations).join(',') }
+}
+
+const f = (x: number, w = 10) => x.toFixed(1).padStart(w)
+console.log(`Wingfold family continuation bench: α1 phase path on m×m supercells of "square-pair" (replicated phases, seeded weights), arclength step ${STEP}`)
+console.log('step = one accepted pseudo-arclength step (predictor, Newton corrector, tangent, σ_min estimate, test functions, diagnostics), median of 5')
+console.log('factorisation = one numeric LDLᵀ of F_u (ordering and symbolic analysis done once before), best of 3\n')
+console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   Newton iterations of the timed steps')
+const sparse: ReturnType<typeof measure>[] = []
+for (const m of [22, 50, 71]) {
+  const r = measure(m, 'auto', 5)
+  sparse.push(r)
+  const ratio = r.stepMs / r.factorMs
+  console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.newton}`)
+}
+const first = sparse[0]!, last = sparse.at(-1)!
+const exponent = Math.log(last.stepMs / first.stepMs) / Math.log(last.V / first.V)
+console.log(`\ngrowth exponent of the step time, V = ${first.V} → ${last.V}: ${exponent.toFixed(2)}  (target ≤ 1.3: ${exponent <= 1.3 ? 'met' : 'MISSED'})`)
+
+console.log('\ndense LU (ml-matrix, F_u treated as unsymmetric: LU, and a transpose LU for the σ_min estimate) in the same step, one run each:')
+console.log('      V       n   dense factor ms   dense step ms   sparse step ms   speed-up  (target ≥ 100 at V = 2k)')
+for (const m of quick ? [22] : [22, 32]) {
+  const d = measure(m, 'dense', 1)
+  const s = m === 22 ? first : measure(m, 'auto', 5)
+  const up = d.stepMs / s.stepMs
+  const target = m === 32 ? (up >= 100 ? 'met' : 'MISSED') : '(V = 1k)'
+  console.log(`${String(d.V).padStart(7)} ${String(d.n).padStart(7)} ${f(d.factorMs, 17)} ${f(d.stepMs, 15)} ${f(s.stepMs, 16)} ${up.toFixed(0).padStart(10)}  ${target}`)
+}
