@@ -1,9 +1,12 @@
 /**
- * Gluing patterns stored by the demo seed. Until the core's example documents exist these are
- * clearly marked placeholders (no analysis summary, so no verdict is shown for them).
+ * Gluing patterns stored by the demo seed: the core's example documents (shared/examples), each
+ * with the summary of `analyzePattern` so the project page can show its verdicts. Torus examples
+ * go to the first demo project, plane examples to the second.
  */
+import { PATTERN_EXAMPLES } from '../../shared/examples'
+import { analyzePattern } from '../../shared/pattern/analyze'
 
-/** A graph for the seed: display name, description, document JSON and optional summary JSON. */
+/** A graph for the seed: display name, description, document JSON and summary JSON. */
 export interface DemoGraph {
   name: string
   description: string
@@ -11,13 +14,10 @@ export interface DemoGraph {
   summary: unknown | null
 }
 
-/** Demo graphs for the project with the given index in DEMO_PROJECTS. */
+/** Demo graphs for the project with the given index in DEMO_PROJECTS (0: torus, 1: plane). */
 export async function demoGraphsFor(projectIndex: number): Promise<DemoGraph[]> {
-  const placeholder = (name: string): DemoGraph => ({
-    name,
-    description: 'Placeholder until the pattern format exists.',
-    document: { placeholder: true, name },
-    summary: null,
-  })
-  return projectIndex === 0 ? [placeholder('Two-tower torus pattern')] : [placeholder('Open-wing pair')]
+  const space = projectIndex === 0 ? 'torus' : 'plane'
+  return PATTERN_EXAMPLES
+    .filter(e => e.document.space === space)
+    .map(e => ({ name: e.title, description: e.description, document: e.document, summary: analyzePattern(e.document).summary }))
 }

@@ -52,6 +52,10 @@ describe('signed-in project page', () => {
     await page.waitForSelector('[data-testid=members-table]')
     expect(await page.locator('[data-testid=members-table] select').count()).toBe(0)
     expect(await page.textContent('[data-testid=members]')).toContain('Only owners change roles.')
+    // verdict badges from the stored summaries, with the evidence note beside them
+    expect(await page.locator('[data-testid=graphs-list] li').count()).toBeGreaterThan(1)
+    expect(await page.textContent('[data-testid=graphs]')).toContain('Results are numerical evidence, not proofs.')
+    await screenshot(page, 'project-page-viewer')
     // the viewer is not a member of the second seeded project (id 2): same page as a missing one
     const res = await page.goto(`${server.url}/projects/2`)
     expect(res?.status()).toBe(404)

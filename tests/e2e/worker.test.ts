@@ -18,6 +18,8 @@ describe('pattern worker', () => {
     await expect.poll(() => status.getAttribute('data-status'), { timeout: 20_000 }).not.toBe('checking')
     expect(await status.getAttribute('data-status')).toBe('ok')
     expect(workers.some(u => /pattern\.worker/.test(u))).toBe(true)
+    // the square pair example is described by its authors as balanced and rigid (shared/examples)
+    expect(await status.textContent()).toContain('balanced, rigid')
     expect(await page.textContent('[data-testid=caution]')).toContain('licensed review')
     await screenshot(page, 'about-worker')
   })

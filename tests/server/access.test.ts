@@ -2,6 +2,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startServer, type TestServer } from '../support/server'
 import { client, signInAs, signUp, type ApiClient } from '../support/http'
+import { PATTERN_EXAMPLES, findPatternExample } from '../../shared/examples'
+import { analyzePattern } from '../../shared/pattern/analyze'
 
 let server: TestServer
 let owner: ApiClient, editor: ApiClient, viewer: ApiClient, stranger: ApiClient, admin: ApiClient
@@ -101,11 +103,16 @@ describe('creating projects', () => {
 })
 
 describe('graphs of a project', () => {
-  it('lists the seeded patterns for members only', async () => {
+  it('lists the seeded example patterns with their stored summaries, for members only', async () => {
     const graphs = await viewer.json('GET', `/api/projects/${projectId}/graphs`)
     expect(graphs.status).toBe(200)
-    expect(graphs.body.length).toBeGreaterThanOrEqual(1)
-    expect(graphs.body[0]).toHaveProperty('version', 1)
+    const torusExamples = PATTERN_EXAMPLES.filter(e => e.document.space === 'torus')
+    expect(graphs.body).toHaveLength(torusExamples.length)
+    const squarePair = (graphs.body as Array<{ name: string, version: number, summary: Record<string, unknown> }>)
+      .find(g => g.name === findPatternExample('square-pair')!.title)!
+    expect(squarePair.version).toBe(1)
+    // the stored summary is the core's own summary of the same document (round trip through the DB)
+    expect(squarePair.summary).toEqual(JSON.parse(JSON.stringify(analyzePattern(findPatternExample('square-pair')!.document).summary)))
     expect((await stranger.json('GET', `/api/projects/${projectId}/graphs`)).status).toBe(404)
   })
 })

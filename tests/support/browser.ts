@@ -56,10 +56,13 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   return path
 }
 
-/** Open a URL and wait until the Vue app has hydrated (app.vue sets `data-hydrated` on <html>). */
-export async function gotoHydrated(page: Page, url: string): Promise<void> {
-  await page.goto(url)
-  await page.waitForSelector('html[data-hydrated="true"]', { state: 'attached' })
+/**
+ * Open a URL and wait until the Vue app has hydrated (app.vue sets `data-hydrated` on <html>).
+ * @param timeoutMs for navigation and hydration (default 30 000; give `nuxt dev` more, it compiles on first visit)
+ */
+export async function gotoHydrated(page: Page, url: string, timeoutMs = 30_000): Promise<void> {
+  await page.goto(url, { timeout: timeoutMs })
+  await page.waitForSelector('html[data-hydrated="true"]', { state: 'attached', timeout: timeoutMs })
 }
 
 /** Sign in through the sign-in form as a demo account; waits for the projects page. */
