@@ -18,7 +18,8 @@ import { familyProblem } from '../shared/families/build'
 import { compilePattern } from '../shared/pattern/model'
 import { SparseSolver } from '../shared/linalg/solver'
 import { parseFamilySettings } from '../shared/types/family'
-import { supercell } from './supercell'
+import { supercell } from '../shared/pattern/supercell'
+import type { PatternDocument } from '../shared/types/pattern'
 
 const settings = parseFamilySettings({ path: { kind: 'alpha1' }, to: 1e6 })
 /** Fixed arclength step of the timed steps. */
@@ -36,6 +37,33 @@ function mulberry32(seed: number): () => number {
   }
 }
 
+/**
+ * The m×m supercell with the cell's phases repeated as ψ(v, i, j) = ψ(v) + i·α1 + j·α2 and period
+ * phases (m·α1, m·α2): every edge keeps its phase difference, so a balanced cell stays balanced.
+ */
+function twistedSupercell(cell: PatternDocument, m: number): PatternDocument {
+  const doc = supercell(cell, m, m)
+  const [a1, a2] = cell.phases?.alpha ?? [0, 0]
+  const vertexPhases: Record<string, number> = {}
+  for (const v of doc.vertices) {
+    const [id, i, j] = v.id.split('.')
+    vertexPhases[v.id] = (cell.phases?.vertexPhases?.[id!] ?? 0) + Number(i) * a1 + Number(j) * a2
+  }
+  doc.phases = { alpha: [m * a1, m * a2], vertexPhases }
+  return doc
+}
+
+/**
+ * Counts the factorisations made inside the timed steps and their time, by wrapping
+ * SparseSolver.prototype.factor (bench only): shows how much of a step is factorisation.
+ */
+const inStep = { calls: 0, ms: 0 }
+const factor = SparseSolver.prototype.factor
+SparseSolver.prototype.factor = function (this: SparseSolver, ...args: Parameters<typeof factor>) {
+  const t0 = performance.now()
+  try { return factor.apply(this, args) } finally { inStep.calls++; inStep.ms += performance.now() - t0 }
+}
+
 /** Best of `reps` timings of f (ms). */
 function best(reps: number, f: () => void): number {
   let t = Infinity
@@ -44,8 +72,8 @@ function best(reps: number, f: () => void): number {
 }
 
 /** Times one factorisation of F_u at the start and the median of `steps` continuation steps. */
-function measure(m: number, method: 'auto' | 'dense', steps: number) {
-  const doc = supercell(findPatternExample('square-pair')!.document, m)
+function measure(m: number, method: 'auto' | 'dense', steps: number, chordNewton = false) {
+  const doc = twistedSupercell(findPatternExample('square-pair')!.document, m)
   // seeded weights in [0.5, 1.5): without them the α1 branch is linear and Newton has nothing to do
   const rand = mulberry32(20261202)
   for (const e of doc.edges) e.weight = 0.5 + rand()
@@ -61,9 +89,10 @@ function measure(m: number, method: 'auto' | 'dense', steps: number) {
   solver.factor(J.Fu, problem.symmetric === true) // ordering and symbolic analysis, reused along a run
   const factorMs = best(method === 'dense' ? 1 : 3, () => { if (!solver.factor(J.Fu, problem.symmetric === true).ok) throw new Error('factorisation failed') })
   // fixed step size so every step does comparable work
-  const run = createContinuation(problem, { u: u0, lambda: l0 }, { initialStep: STEP, maxStep: STEP, solver: { method } })
+  const run = createContinuation(problem, { u: u0, lambda: l0 }, { initialStep: STEP, maxStep: STEP, solver: { method }, chordNewton })
   if (!run.started) throw new Error(`start refused: ${run.finishReason}`)
   const times: number[] = []
+  inStep.calls = 0; inStep.ms = 0
   for (let s = 0; s < steps && !run.done; s++) {
     const t0 = performance.now()
     const o = run.next()
@@ -72,24 +101,29 @@ function measure(m: number, method: 'auto' | 'dense', steps: number) {
   }
   times.sort((a, b) => a - b)
   const stepMs = times[Math.floor(times.length / 2)]!
-  return { V: model.nVertices, n: problem.n, factorMs, stepMs, newton: run.points.slice(1).map(p => p.newtonIterations).join(',') }
+  const total = times.reduce((a, b) => a + b, 0)
+  return { V: model.nVertices, n: problem.n, factorMs, stepMs, perStep: inStep.calls / times.length, share: inStep.ms / total, newton: run.points.slice(1).map(p => p.newtonIterations).join(',') }
 }
 
 const f = (x: number, w = 10) => x.toFixed(1).padStart(w)
 console.log(`Wingfold family continuation bench: α1 phase path on m×m supercells of "square-pair" (replicated phases, seeded weights), arclength step ${STEP}`)
 console.log('step = one accepted pseudo-arclength step (predictor, Newton corrector, tangent, σ_min estimate, test functions, diagnostics), median of 5')
 console.log('factorisation = one numeric LDLᵀ of F_u (ordering and symbolic analysis done once before), best of 3\n')
-console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   Newton iterations of the timed steps')
+console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   factorisations/step  in factorisation   Newton iterations')
+measure(22, 'auto', 5) // warm-up (JIT), not printed
 const sparse: ReturnType<typeof measure>[] = []
-for (const m of [22, 50, 71]) {
-  const r = measure(m, 'auto', 5)
-  sparse.push(r)
-  const ratio = r.stepMs / r.factorMs
-  console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.newton}`)
+for (const chord of [false, true]) {
+  console.log(chord ? 'chord Newton (step.chord = true):' : 'full Newton (default):')
+  for (const m of [22, 50, 71]) {
+    const r = measure(m, 'auto', 5, chord)
+    if (!chord) sparse.push(r)
+    const ratio = r.stepMs / r.factorMs
+    console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.newton}`)
+  }
 }
 const first = sparse[0]!, last = sparse.at(-1)!
 const exponent = Math.log(last.stepMs / first.stepMs) / Math.log(last.V / first.V)
-console.log(`\ngrowth exponent of the step time, V = ${first.V} → ${last.V}: ${exponent.toFixed(2)}  (target ≤ 1.3: ${exponent <= 1.3 ? 'met' : 'MISSED'})`)
+console.log(`\ngrowth exponent of the step time (full Newton), V = ${first.V} → ${last.V}: ${exponent.toFixed(2)}  (target ≤ 1.3: ${exponent <= 1.3 ? 'met' : 'MISSED'})`)
 
 console.log('\ndense LU (ml-matrix, F_u treated as unsymmetric: LU, and a transpose LU for the σ_min estimate) in the same step, one run each:')
 console.log('      V       n   dense factor ms   dense step ms   sparse step ms   speed-up  (target ≥ 100 at V = 2k)')

@@ -6,6 +6,9 @@
  * solves one bordered system (bordered.ts). Converged when max|F| ≤ residualTolerance, or (after
  * at least one update) when the last update is ≤ stepTolerance·(1 + max|y|), which is what
  * remains possible when F is large-scaled and its rounding noise exceeds residualTolerance.
+ * With `chord` the first iteration's bordered matrix is kept for all iterations (chord or
+ * simplified Newton: J. M. Ortega, W. C. Rheinboldt, Iterative Solution of Nonlinear Equations
+ * in Several Variables, 1970, §7.1), trading quadratic convergence for fewer factorisations.
  */
 import type { ContinuationProblem } from './types'
 import type { BorderedMatrix, BorderedSolver, PointJacobian } from './bordered'
@@ -20,8 +23,8 @@ export interface CorrectorResult {
   reason?: string
 }
 
-/** Settings the corrector needs. */
-export interface CorrectorSettings { maxNewtonIterations: number; residualTolerance: number; stepTolerance: number }
+/** Settings the corrector needs; `chord`: reuse the first iteration's factorisation (default false). */
+export interface CorrectorSettings { maxNewtonIterations: number; residualTolerance: number; stepTolerance: number; chord?: boolean }
 
 /** Evaluate the problem's Jacobian at y = (u, λ). */
 export function jacobianAt(problem: ContinuationProblem, y: Float64Array): PointJacobian {
@@ -41,6 +44,7 @@ export function correct(problem: ContinuationProblem, solver: BorderedSolver, y0
   const y = y0.slice()
   const F = new Float64Array(n)
   let lastUpdate = Infinity
+  let M: BorderedMatrix | undefined
   for (let k = 0; ; k++) {
     problem.residual(y.subarray(0, n), y[n]!, F)
     const res = normInf(F)
@@ -51,10 +55,11 @@ export function correct(problem: ContinuationProblem, solver: BorderedSolver, y0
       return { converged: true, y, iterations: k, residualNorm: res }
     }
     if (k === s.maxNewtonIterations) return { converged: false, y, iterations: k, residualNorm: res, reason: `Newton did not converge in ${k} iterations (max|F| = ${res.toExponential(2)})` }
-    let M: BorderedMatrix
-    try { M = solver.prepare(jacobianAt(problem, y), c) } catch (e) { return { converged: false, y, iterations: k, residualNorm: res, reason: `Jacobian failed: ${String(e)}` } }
+    if (!(s.chord && M)) {
+      try { M = solver.prepare(jacobianAt(problem, y), c) } catch (e) { return { converged: false, y, iterations: k, residualNorm: res, reason: `Jacobian failed: ${String(e)}` } }
+    }
     for (let i = 0; i < n; i++) F[i] = -F[i]!
-    const d = M.solve(F, -constraint)
+    const d = M!.solve(F, -constraint)
     if (!d.ok) return { converged: false, y, iterations: k, residualNorm: res, reason: d.reason }
     for (let i = 0; i <= n; i++) y[i]! += d.x[i]!
     lastUpdate = normInf(d.x)

@@ -60,7 +60,7 @@ export class Continuation {
     this.solver = new BorderedSolver(n, symmetric, o.solver, o.borderingTolerance)
     this.ctx = {
       problem, solver: this.solver, solverT: new BorderedSolver(n, false, o.solver, o.borderingTolerance), options: o,
-      corrector: { maxNewtonIterations: o.maxNewtonIterations, residualTolerance: o.residualTolerance, stepTolerance: o.stepTolerance },
+      corrector: { maxNewtonIterations: o.maxNewtonIterations, residualTolerance: o.residualTolerance, stepTolerance: o.stepTolerance, chord: o.chordNewton },
       sigmaIterations: o.sigmaIterations, locateTolerance: o.locateTolerance, maxLocateIterations: o.maxLocateIterations,
     }
     this.ds = Math.min(o.maxStep, Math.max(o.minStep, start.stepSize ?? o.initialStep))

@@ -24,6 +24,13 @@ export interface ContinuationOptions {
   fastIterations?: number
   /** Newton iterations per corrector. Default 10. */
   maxNewtonIterations?: number
+  /**
+   * Chord Newton: factorise the bordered matrix once per corrector (at the predicted point) and
+   * reuse it for every iteration (linear instead of quadratic convergence, one factorisation
+   * instead of one per iteration). Default false. With it, raise fastIterations if steps should
+   * still grow (chord needs more, cheaper iterations).
+   */
+  chordNewton?: boolean
   /** Converged when max|F| ≤ this and the last update ≤ stepTolerance·(1+max|y|). Default 1e-10. */
   residualTolerance?: number
   /** See residualTolerance. Default 1e-10. */
@@ -69,7 +76,7 @@ export interface ContinuationOptions {
 /** Defaults of {@link ContinuationOptions}. */
 export const CONTINUATION_DEFAULTS = {
   direction: 'increase', predictor: 'tangent', initialStep: 0.05, minStep: 1e-8, maxStep: 0.5,
-  growFactor: 1.5, shrinkFactor: 0.5, fastIterations: 3, maxNewtonIterations: 10,
+  growFactor: 1.5, shrinkFactor: 0.5, fastIterations: 3, maxNewtonIterations: 10, chordNewton: false,
   residualTolerance: 1e-10, stepTolerance: 1e-10, maxTurnAngle: 0.5, maxPoints: 1000,
   lambdaMin: -Infinity, lambdaMax: Infinity, stateBounds: [] as StateBound[], milestones: [] as number[],
   stopAtSpecialPoint: false, detectFolds: true, detectBranchPoints: true, detectRigidityLoss: true,
@@ -88,6 +95,7 @@ export function validateContinuationOptions(o: ContinuationOptions = {}): Resolv
   for (const k of positive) if (!(typeof r[k] === 'number' && r[k] > 0)) throw new Error(`continuation: ${k} must be a positive number`)
   const counts = ['fastIterations', 'maxNewtonIterations', 'maxPoints', 'maxLocateIterations', 'sigmaIterations'] as const
   for (const k of counts) if (!(Number.isInteger(r[k]) && r[k] >= 1)) throw new Error(`continuation: ${k} must be an integer ≥ 1`)
+  if (typeof r.chordNewton !== 'boolean') throw new Error('continuation: chordNewton must be a boolean')
   if (r.direction !== 'increase' && r.direction !== 'decrease') throw new Error("continuation: direction must be 'increase' or 'decrease'")
   if (r.predictor !== 'tangent' && r.predictor !== 'secant') throw new Error("continuation: predictor must be 'tangent' or 'secant'")
   if (!(r.minStep <= r.initialStep && r.initialStep <= r.maxStep)) throw new Error('continuation: need minStep ≤ initialStep ≤ maxStep')

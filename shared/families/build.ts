@@ -2,8 +2,8 @@
  * From a pattern document and family settings to an engine run: the problem, the start point
  * (balanced at the start value of λ when asked) and the engine options.
  */
-import { CONTINUATION_DEFAULTS } from '../continuation/options'
-import type { ContinuationOptions, ContinuationProblem, ContinuationStart } from '../continuation/types'
+import { CONTINUATION_DEFAULTS, type ContinuationOptions } from '../continuation/options'
+import type { ContinuationProblem, ContinuationStart } from '../continuation/types'
 import { solveBalance } from '../pattern/balance-solve'
 import { compilePattern, type PatternModel } from '../pattern/model'
 import { solvePhases } from '../pattern/phase-solve'
@@ -64,6 +64,8 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
     ...(s.min !== undefined ? { minStep: s.min } : {}),
     ...(s.max !== undefined ? { maxStep: s.max } : {}),
     ...(s.maxNewtonIterations !== undefined ? { maxNewtonIterations: s.maxNewtonIterations } : {}),
+    // chord iterations converge linearly: allow more of them before a step counts as slow
+    ...(s.chord ? { chordNewton: true, fastIterations: 6 } : {}),
   }
   if (settings.to > lambda0) o.lambdaMax = settings.to
   else if (settings.to < lambda0) o.lambdaMin = settings.to

@@ -129,7 +129,7 @@ export class FamilyRunner {
     if (this.status === 'paused') this.status = 'running'
     let first = this.startPoints
     while (!this.done) {
-      if (this.status === 'paused') await new Promise<void>((resolve) => { this.wake = resolve })
+      if (this.isPaused()) await new Promise<void>((resolve) => { this.wake = resolve })
       if (this.done) break
       const b = this.step(batch)
       if (first.length) { b.points.unshift(...first); first = [] }
@@ -139,6 +139,8 @@ export class FamilyRunner {
     if (first.length || this.status === 'refused') await onBatch({ points: first, specialPoints: [], progress: this.progress(), done: true, finishReason: this.finishReason() })
     return this.result()
   }
+
+  private isPaused(): boolean { return this.status === 'paused' }
 
   /** Stops after the current batch until {@link resume}. */
   pause(): void { if (this.status === 'running') this.status = 'paused' }

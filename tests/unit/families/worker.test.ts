@@ -4,7 +4,7 @@
  */
 import { MessageChannel } from 'node:worker_threads'
 import { expose, proxy, wrap, type Remote } from 'comlink'
-import nodeEndpoint from 'comlink/dist/esm/node-adapter.mjs'
+import nodeEndpoint from 'comlink/dist/esm/node-adapter'
 import { afterEach, describe, expect, it } from 'vitest'
 import type { FamilyBatch } from '../../../shared/families'
 import { createContinuationWorkerApi, type ContinuationWorkerApi } from '../../../workers/continuation.worker'
