@@ -27,6 +27,10 @@ describe('seeing a project', () => {
       const list = (await c.json('GET', '/api/projects')).body as Array<{ id: number, role: string }>
       expect(list.find(p => p.id === projectId)?.role).toBe(role)
     }
+    // counts: three demo members (server/db/demo-data.ts) and one graph per torus example
+    const mine = ((await owner.json('GET', '/api/projects')).body as Array<{ id: number, memberCount: number, graphCount: number }>).find(p => p.id === projectId)!
+    expect(mine.memberCount).toBe(3)
+    expect(mine.graphCount).toBe(PATTERN_EXAMPLES.filter(e => e.document.space === 'torus').length)
   })
 
   it('answers 404 to a stranger, the same as for a project that does not exist', async () => {

@@ -12,8 +12,11 @@ describe('admin pages', () => {
     const admin = await signInAs(server.url, 'admin')
     const res = await admin.json('GET', '/api/admin/users')
     expect(res.status).toBe(200)
-    const emails = (res.body as Array<{ email: string }>).map(u => u.email)
-    for (const a of DEMO_ACCOUNTS) expect(emails).toContain(a.email)
+    const rows = res.body as Array<{ email: string, projectCount: number }>
+    for (const a of DEMO_ACCOUNTS) expect(rows.map(u => u.email)).toContain(a.email)
+    // memberships of the demo seed (server/db/demo-data.ts): owner 2, editor 2, viewer 1, admin 0
+    const countOf = (key: Parameters<typeof demo>[0]) => rows.find(u => u.email === demo(key).email)!.projectCount
+    expect([countOf('owner'), countOf('editor'), countOf('viewer'), countOf('admin')]).toEqual([2, 2, 1, 0])
   })
 
   it('refuses members with 403 and visitors with 401', async () => {

@@ -11,6 +11,6 @@ export default defineEventHandler(async (event): Promise<GraphListItem[]> => {
     .select({ id: g.id, name: g.name, description: g.description, version: g.latestVersion, summary: v.analysisSummary, updatedAt: g.updatedAt })
     .from(g).leftJoin(v, and(eq(v.graphId, g.id), eq(v.version, g.latestVersion)))
     .where(eq(g.projectId, id))
-    .orderBy(desc(g.updatedAt))
+    .orderBy(desc(g.updatedAt), g.id)
   return rows.map(r => ({ ...r, summary: r.summary ? JSON.parse(r.summary) : null, updatedAt: r.updatedAt.toISOString() }))
 })
