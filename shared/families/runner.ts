@@ -71,6 +71,8 @@ export class FamilyRunner {
   private error?: string
   private stepSize: number
   private wake?: () => void
+  /** Whether a batch has carried the start point yet. */
+  private startDelivered = false
 
   /** Throws on invalid settings or a document the path does not apply to. */
   constructor(doc: PatternDocument, settings: FamilySettingsInput | FamilySettings) {
@@ -86,20 +88,20 @@ export class FamilyRunner {
     return this.status === 'finished' || this.status === 'cancelled' || this.status === 'failed' || this.status === 'refused'
   }
 
-  /** The start point (already computed by the constructor when the start was accepted). */
-  get startPoints(): ContinuationPoint[] { return this.run.points.slice(0, 1) }
-
   private progress(): FamilyProgress {
     const last = this.run.points.at(-1)
     return { points: this.run.points.length, lambda: last?.lambda ?? this.setup.start.lambda, stepSize: this.stepSize, specialPoints: this.run.specialPoints.length, rejectedSteps: this.run.stats.rejected }
   }
 
-  /** Makes steps until the batch limit or the end; synchronous. */
+  /** Makes steps until the batch limit or the end; synchronous. The first batch also carries the start point. */
   step(batch: BatchOptions = {}): FamilyBatch {
     const b = validateBatch(batch)
-    const points: ContinuationPoint[] = [], specialPoints: SpecialPoint[] = []
+    const points: ContinuationPoint[] = this.startDelivered ? [] : this.run.points.slice(0, 1)
+    const specialPoints: SpecialPoint[] = []
+    this.startDelivered = true
     const t0 = Date.now()
-    while (!this.done && !this.run.done && points.length < b.points && Date.now() - t0 < b.ms) {
+    const limit = points.length + b.points
+    while (!this.done && !this.run.done && points.length < limit && Date.now() - t0 < b.ms) {
       try {
         const s = this.run.next()
         points.push(...s.points)
@@ -123,20 +125,18 @@ export class FamilyRunner {
   /**
    * Runs to the end, delivering each batch to `onBatch` (the start point comes in the first
    * batch) and yielding to the event loop between batches so pause and cancel can arrive.
+   * A refused start delivers one final batch with the reason.
    */
   async start(onBatch: (b: FamilyBatch) => void | Promise<void>, batch: BatchOptions = {}): Promise<FamilyRunResult> {
     validateBatch(batch)
     if (this.status === 'paused') this.status = 'running'
-    let first = this.startPoints
+    if (this.done) await onBatch(this.step(batch))
     while (!this.done) {
       if (this.isPaused()) await new Promise<void>((resolve) => { this.wake = resolve })
       if (this.done) break
-      const b = this.step(batch)
-      if (first.length) { b.points.unshift(...first); first = [] }
-      await onBatch(b)
+      await onBatch(this.step(batch))
       await tick()
     }
-    if (first.length || this.status === 'refused') await onBatch({ points: first, specialPoints: [], progress: this.progress(), done: true, finishReason: this.finishReason() })
     return this.result()
   }
 

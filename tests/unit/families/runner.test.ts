@@ -28,6 +28,14 @@ describe('FamilyRunner', () => {
     expect(batches.flatMap(b => b.specialPoints).map(s => s.kind)).toEqual(res.branch.specialPoints.map(s => s.kind))
   })
 
+  it('mixes synchronous steps and start() without repeating a point', async () => {
+    const r = new FamilyRunner(fermatPair(), shear)
+    const first = r.step({ points: 2 }).points
+    const rest: number[] = []
+    const res = await r.start((b) => { rest.push(...b.points.map(p => p.index)) }, { points: 5 })
+    expect([...first.map(p => p.index), ...rest]).toEqual(res.branch.points.map((_, i) => i))
+  })
+
   it('pauses, resumes and runs to the same end as an uninterrupted run', async () => {
     const plain = new FamilyRunner(fermatPair(), shear)
     const ref = await plain.start(() => {}, { points: 1 })
