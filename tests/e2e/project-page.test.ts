@@ -1,18 +1,15 @@
 /** Real Chromium against the built server: the demo owner signs in and opens a project. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startServer, type TestServer } from '../support/server'
-import { gotoHydrated, launchBrowser, screenshot, signInWithForm, type TestBrowser } from '../support/browser'
+import { describe, expect, it } from 'vitest'
+import { useServerAndBrowser } from '../support/fixtures'
+import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
 import { demo } from '../support/http'
 
-let server: TestServer
-let browser: TestBrowser
-beforeAll(async () => { [server, browser] = await Promise.all([startServer(), launchBrowser()]) })
-afterAll(async () => { await browser?.close(); await server?.stop() })
+const ctx = useServerAndBrowser()
 
 describe('signed-in project page', () => {
   it('signs in through the form, lists projects, opens one and shows the members table', async () => {
-    const page = await browser.newPage()
-    await signInWithForm(page, server.url, 'owner')
+    const page = await ctx.browser.newPage()
+    await signInWithForm(page, ctx.server.url, 'owner')
     await page.waitForSelector('[data-testid=projects-table]')
     expect(await page.locator('[data-testid=projects-table] tbody tr').count()).toBe(2)
 
@@ -45,9 +42,9 @@ describe('signed-in project page', () => {
   })
 
   it('shows the members table read-only to a viewer, and a not-found page for other projects', async () => {
-    const page = await browser.newPage()
-    await browser.context.clearCookies()
-    await signInWithForm(page, server.url, 'viewer')
+    const page = await ctx.browser.newPage()
+    await ctx.browser.context.clearCookies()
+    await signInWithForm(page, ctx.server.url, 'viewer')
     await page.click('text=Genus-three torus gluings')
     await page.waitForSelector('[data-testid=members-table]')
     expect(await page.locator('[data-testid=members-table] select').count()).toBe(0)
@@ -57,16 +54,16 @@ describe('signed-in project page', () => {
     expect(await page.textContent('[data-testid=graphs]')).toContain('Results are numerical evidence, not proofs.')
     await screenshot(page, 'project-page-viewer')
     // the viewer is not a member of the second seeded project (id 2): same page as a missing one
-    const res = await page.goto(`${server.url}/projects/2`)
+    const res = await page.goto(`${ctx.server.url}/projects/2`)
     expect(res?.status()).toBe(404)
     await page.waitForSelector('[data-testid=error-page]')
     expect(await page.textContent('[data-testid=error-page]')).toContain('Not found')
   })
 
   it('shows validation and server messages on the sign-in form', async () => {
-    const page = await browser.newPage()
-    await browser.context.clearCookies()
-    await gotoHydrated(page, `${server.url}/sign-in`)
+    const page = await ctx.browser.newPage()
+    await ctx.browser.context.clearCookies()
+    await gotoHydrated(page, `${ctx.server.url}/sign-in`)
     await page.click('button[type=submit]')
     expect(await page.textContent('[data-testid=sign-in-form]')).toContain('Enter a valid e-mail address.')
     await page.fill('#email', demo('viewer').email)

@@ -1,17 +1,14 @@
 /** Real Chromium: a newcomer signs up, sees the empty projects list, creates a project, and the admin sees them. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startServer, type TestServer } from '../support/server'
-import { gotoHydrated, launchBrowser, screenshot, signInWithForm, type TestBrowser } from '../support/browser'
+import { describe, expect, it } from 'vitest'
+import { useServerAndBrowser } from '../support/fixtures'
+import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
 
-let server: TestServer
-let browser: TestBrowser
-beforeAll(async () => { [server, browser] = await Promise.all([startServer(), launchBrowser()]) })
-afterAll(async () => { await browser?.close(); await server?.stop() })
+const ctx = useServerAndBrowser()
 
 describe('sign-up to first project', () => {
   it('validates the sign-up form, signs up, shows the empty state and creates a project', async () => {
-    const page = await browser.newPage()
-    await gotoHydrated(page, `${server.url}/sign-up`)
+    const page = await ctx.browser.newPage()
+    await gotoHydrated(page, `${ctx.server.url}/sign-up`)
     await page.fill('#name', 'Newcomer')
     await page.fill('#email', 'newcomer@example.org')
     await page.fill('#password', 'short')
@@ -35,17 +32,17 @@ describe('sign-up to first project', () => {
   })
 
   it('lists the newcomer on the admin users page, and keeps members off it', async () => {
-    await browser.context.clearCookies()
-    const page = await browser.newPage()
-    await signInWithForm(page, server.url, 'admin')
-    await gotoHydrated(page, `${server.url}/admin/users`)
+    await ctx.browser.context.clearCookies()
+    const page = await ctx.browser.newPage()
+    await signInWithForm(page, ctx.server.url, 'admin')
+    await gotoHydrated(page, `${ctx.server.url}/admin/users`)
     await page.waitForSelector('[data-testid=users-table]')
     expect(await page.textContent('[data-testid=users-table]')).toContain('newcomer@example.org')
     await screenshot(page, 'admin-users')
 
-    await browser.context.clearCookies()
-    await signInWithForm(page, server.url, 'editor')
-    const res = await page.goto(`${server.url}/admin/users`)
+    await ctx.browser.context.clearCookies()
+    await signInWithForm(page, ctx.server.url, 'editor')
+    const res = await page.goto(`${ctx.server.url}/admin/users`)
     expect(res?.status()).toBe(404)
   })
 })

@@ -1,25 +1,23 @@
 /** Project access by role against the built server: the one access helper's rules. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startServer, type TestServer } from '../support/server'
+import { beforeAll, describe, expect, it } from 'vitest'
+import { useTestServer } from '../support/fixtures'
 import { client, signInAs, signUp, type ApiClient } from '../support/http'
 import { PATTERN_EXAMPLES, findPatternExample } from '../../shared/examples'
 import { analyzePattern } from '../../shared/pattern/analyze'
 
-let server: TestServer
+const ctx = useTestServer()
 let owner: ApiClient, editor: ApiClient, viewer: ApiClient, stranger: ApiClient, admin: ApiClient
 let projectId: number
 let viewerId: number
 
 beforeAll(async () => {
-  server = await startServer()
-  ;[owner, editor, viewer, admin] = await Promise.all([signInAs(server.url, 'owner'), signInAs(server.url, 'editor'), signInAs(server.url, 'viewer'), signInAs(server.url, 'admin')])
-  stranger = await signUp(server.url, 'Stranger', 'stranger@example.org')
+  ;[owner, editor, viewer, admin] = await Promise.all([signInAs(ctx.server.url, 'owner'), signInAs(ctx.server.url, 'editor'), signInAs(ctx.server.url, 'viewer'), signInAs(ctx.server.url, 'admin')])
+  stranger = await signUp(ctx.server.url, 'Stranger', 'stranger@example.org')
   const list = (await owner.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>
   projectId = list.find(p => p.name === 'Genus-three torus gluings')!.id
   const members = (await owner.json('GET', `/api/projects/${projectId}/members`)).body as Array<{ userId: number, role: string }>
   viewerId = members.find(m => m.role === 'viewer')!.userId
 })
-afterAll(async () => { await server?.stop() })
 
 describe('seeing a project', () => {
   it('lists a project for its members with their role', async () => {
@@ -48,7 +46,7 @@ describe('seeing a project', () => {
   })
 
   it('answers 401 without a session', async () => {
-    expect((await client(server.url).json('GET', `/api/projects/${projectId}`)).status).toBe(401)
+    expect((await client(ctx.server.url).json('GET', `/api/projects/${projectId}`)).status).toBe(401)
   })
 })
 

@@ -1,15 +1,13 @@
 /** Admin-only routes and the account page's routes against the built server. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startServer, type TestServer } from '../support/server'
+import { describe, expect, it } from 'vitest'
+import { useTestServer } from '../support/fixtures'
 import { client, DEMO_ACCOUNTS, demo, signIn, signInAs, signUp } from '../support/http'
 
-let server: TestServer
-beforeAll(async () => { server = await startServer() })
-afterAll(async () => { await server?.stop() })
+const ctx = useTestServer()
 
 describe('admin pages', () => {
   it('lists every account to the admin', async () => {
-    const admin = await signInAs(server.url, 'admin')
+    const admin = await signInAs(ctx.server.url, 'admin')
     const res = await admin.json('GET', '/api/admin/users')
     expect(res.status).toBe(200)
     const rows = res.body as Array<{ email: string, projectCount: number }>
@@ -20,16 +18,16 @@ describe('admin pages', () => {
   })
 
   it('refuses members with 403 and visitors with 401', async () => {
-    const owner = await signInAs(server.url, 'owner')
+    const owner = await signInAs(ctx.server.url, 'owner')
     expect((await owner.json('GET', '/api/admin/users')).status).toBe(403)
     expect((await owner.json('PATCH', '/api/admin/settings', { signupEnabled: false })).status).toBe(403)
-    expect((await client(server.url).json('GET', '/api/admin/users')).status).toBe(401)
+    expect((await client(ctx.server.url).json('GET', '/api/admin/users')).status).toBe(401)
   })
 
   it('keeps the admin page itself away from members (rendered 404)', async () => {
-    const owner = await signInAs(server.url, 'owner')
+    const owner = await signInAs(ctx.server.url, 'owner')
     expect((await owner.fetch('/admin/users')).status).toBe(404)
-    const admin = await signInAs(server.url, 'admin')
+    const admin = await signInAs(ctx.server.url, 'admin')
     const page = await admin.fetch('/admin/users')
     expect(page.status).toBe(200)
     expect(await page.text()).toContain(demo('viewer').email)
@@ -38,11 +36,11 @@ describe('admin pages', () => {
 
 describe('account', () => {
   it('changes name, notification choice and password', async () => {
-    const c = await signUp(server.url, 'Before', 'renamer@example.org', 'first-passphrase-1')
+    const c = await signUp(ctx.server.url, 'Before', 'renamer@example.org', 'first-passphrase-1')
     const patched = await c.json('PATCH', '/api/account', { name: 'After', notifyOptOut: true })
     expect(patched.body).toEqual({ name: 'After', notifyOptOut: true })
     expect((await c.json('POST', '/api/account/password', { currentPassword: 'wrong-one', newPassword: 'second-passphrase-2' })).status).toBe(400)
     expect((await c.json('POST', '/api/account/password', { currentPassword: 'first-passphrase-1', newPassword: 'second-passphrase-2' })).status).toBe(200)
-    await signIn(server.url, 'renamer@example.org', 'second-passphrase-2')
+    await signIn(ctx.server.url, 'renamer@example.org', 'second-passphrase-2')
   })
 })

@@ -1,0 +1,23 @@
+/**
+ * vitest fixtures: one server (and optionally one Chromium) per test file, started in
+ * `beforeAll` and stopped in `afterAll`. Read the fields inside tests, not at import time.
+ */
+import { afterAll, beforeAll } from 'vitest'
+import { startServer, type StartServerOptions, type TestServer } from './server'
+import { launchBrowser, type TestBrowser } from './browser'
+
+/** A built (or dev) server for this test file. */
+export function useTestServer(opts?: StartServerOptions): { server: TestServer } {
+  const ctx = {} as { server: TestServer }
+  beforeAll(async () => { ctx.server = await startServer(opts) })
+  afterAll(async () => { await ctx.server?.stop() })
+  return ctx
+}
+
+/** A server and a Chromium for this test file (started in parallel). */
+export function useServerAndBrowser(opts?: StartServerOptions): { server: TestServer, browser: TestBrowser } {
+  const ctx = {} as { server: TestServer, browser: TestBrowser }
+  beforeAll(async () => { [ctx.server, ctx.browser] = await Promise.all([startServer(opts), launchBrowser()]) })
+  afterAll(async () => { await ctx.browser?.close(); await ctx.server?.stop() })
+  return ctx
+}
