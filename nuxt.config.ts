@@ -2,6 +2,11 @@
 export default defineNuxtConfig({
   compatibilityDate: '2026-11-01',
   devtools: { enabled: false },
+  // WINGFOLD_BUILD_DIR / WINGFOLD_OUTPUT_DIR let two builds of one checkout coexist (e.g. a
+  // developer's build while another one is under test); tests/support/server.ts reads the same
+  // variable. Unset: Nuxt's usual .nuxt and .output.
+  buildDir: process.env.WINGFOLD_BUILD_DIR || '.nuxt',
+  nitro: { output: { dir: process.env.WINGFOLD_OUTPUT_DIR || '.output' } },
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
   css: [
     '@fontsource/space-grotesk/400.css',

@@ -52,7 +52,7 @@ export function freePort(): Promise<number> {
 /** Start the built server; resolves once /api/health answers 200 (migrated and seeded). */
 export async function startServer(opts: StartServerOptions = {}): Promise<TestServer> {
   const dev = opts.mode === 'dev'
-  const entry = join(ROOT, '.output/server/index.mjs')
+  const entry = join(ROOT, process.env.WINGFOLD_OUTPUT_DIR || '.output', 'server/index.mjs')
   if (!dev && !existsSync(entry)) throw new Error('No build found: run `npx nuxt build` before the server and e2e tests (npm test does).')
   const dataDir = mkdtempSync(join(tmpdir(), 'wingfold-test-'))
   const port = await freePort()
