@@ -180,9 +180,30 @@ export const mailMessages = sqliteTable('mail_messages', {
   htmlBody: text('html_body'),
   status: text('status').notNull().default('queued'),
   error: text('error'),
+  /** Sender address used (runtime config `mailFrom` at the time of sending). */
+  fromAddress: text('from_address').notNull().default(''),
+  /** Template that produced the message (e.g. `invitation`, `password-reset`). */
+  kind: text('kind').notNull().default(''),
+  /** Message-ID header we set, so the fake SMTP server can match what it received to this row. */
+  messageId: text('message_id'),
+  /** Delivery attempts so far; retried with exponential backoff until `next_attempt_at`. */
+  attempts: integer('attempts').notNull().default(0),
+  nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }),
+  sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
-})
+}, t => [index('mail_messages_status_idx').on(t.status, t.nextAttemptAt), uniqueIndex('mail_messages_message_id_unique').on(t.messageId)])
+
+/** Password-reset requests (only the token's hash is stored; single use, expiring). */
+export const passwordResets = sqliteTable('password_resets', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  tokenHash: text('token_hash').notNull(),
+  expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+  usedAt: integer('used_at', { mode: 'timestamp_ms' }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [uniqueIndex('password_resets_token_hash_unique').on(t.tokenHash), index('password_resets_user_idx').on(t.userId)])
 
 /** Key/value application settings (e.g. `signup_enabled`). */
 export const appSettings = sqliteTable('app_settings', {
