@@ -1,0 +1,94 @@
+/**
+ * Curve tracing in a map plane: from a point on a curve (a collapse that ended a row, or a
+ * rigidity loss passed by a row or the spine), continue the defining system in two parameters
+ * (pseudo-arclength, Keller 1977) both ways until it leaves the plane's window.
+ * Collapse: the contracted-edge system of collapse.ts. Rigidity loss: the minimally augmented
+ * system of augmented.ts (Govaerts 2000).
+ */
+import { runContinuation } from '../continuation/engine'
+import type { ContinuationProblem } from '../continuation/types'
+import { trailingBlock } from '../families/reduce'
+import { balanceJacobian, balanceResidual } from '../pattern/balance'
+import { compilePattern, type PatternModel } from '../pattern/model'
+import { phaseJacobian, phaseResidual } from '../pattern/phases'
+import { parseMapSettings, type MapCrossing, type MapSettings } from '../types/maps'
+import type { PatternDocument } from '../types/pattern'
+import { nullVectors, rigidityLossCurveProblem, type TwoParameterProblem } from './augmented'
+import { collapseCurveProblem, shortestEdge } from './collapse'
+import { tauLattice } from './plane'
+
+/** A traced curve: points (a, b) in plane coordinates, in order along the curve. */
+export interface TracedCurve {
+  kind: string
+  points: [number, number][]
+  /** Max |residual| over the points (the defining system). */
+  maxResidual: number
+  converged: boolean
+  /** Why each half ended. */
+  endReasons: string[]
+}
+
+/** Window and step of a trace. */
+export interface TraceWindow { aMin: number; aMax: number; bMin: number; bMax: number; maxStep?: number; maxPoints?: number }
+
+/** Traces the curve of `problem` (λ = a, last state component = b) through y0 both ways inside the window. */
+export function traceCurve(kind: string, problem: ContinuationProblem, y0: Float64Array, a0: number, w: TraceWindow): TracedCurve {
+  const N = problem.n
+  const halves = (['decrease', 'increase'] as const).map(direction => runContinuation(problem, { u: y0, lambda: a0 }, {
+    direction, lambdaMin: w.aMin, lambdaMax: w.aMax, stateBounds: [{ component: N - 1, min: w.bMin, max: w.bMax }],
+    maxStep: w.maxStep ?? 0.05, initialStep: Math.min(0.01, w.maxStep ?? 0.05), maxPoints: w.maxPoints ?? 2000,
+    detectBranchPoints: false, detectRigidityLoss: false, detectFolds: false, closedLoopTolerance: 1e-6,
+  }))
+  const toXY = (p: { u: number[]; lambda: number }): [number, number] => [p.lambda, p.u[N - 1]!]
+  const first = halves[0]!.points.slice(1).reverse().map(toXY)
+  const second = halves[1]!.points.map(toXY)
+  const all = [...halves[0]!.points, ...halves[1]!.points]
+  return {
+    kind,
+    points: [...first, ...second],
+    maxResidual: all.reduce((m, p) => Math.max(m, p.residualNorm), 0),
+    converged: halves.every(h => h.started),
+    endReasons: halves.map(h => h.finishReason ?? ''),
+  }
+}
+
+/** The map plane's F(u, a, b) with F_u, for the rigidity-loss system. */
+export function planeTwoParameterProblem(m: PatternModel, s: MapSettings): TwoParameterProblem {
+  const V = m.nVertices
+  if (s.plane === 'tau') {
+    const at = tauLattice(m.lattice, s.scaleBy)
+    const full = (u: Float64Array) => { const p = new Float64Array(2 * V); p[0] = m.positions[0]!; p[1] = m.positions[1]!; p.set(u, 2); return p }
+    return {
+      n: 2 * V - 2,
+      residual: (u, a, b, out) => out.set(balanceResidual(m, full(u), at(a, b).lattice).subarray(2)),
+      jacobianU: (u, a, b) => trailingBlock(balanceJacobian(m, full(u), at(a, b).lattice), 2),
+    }
+  }
+  const psi = (u: Float64Array) => { const p = new Float64Array(V); p[0] = m.psi[0]!; p.set(u, 1); return p }
+  return {
+    n: V - 1,
+    residual: (u, a, b, out) => out.set(phaseResidual(m, psi(u), [a, b], m.weight).subarray(1)),
+    jacobianU: (u, a, b) => trailingBlock(phaseJacobian(m, psi(u), [a, b], m.weight), 1),
+  }
+}
+
+/** Traces the curve through a crossing of a map (collapse or rigidity loss). */
+export function traceMapCurve(doc: PatternDocument, settingsInput: unknown, crossing: MapCrossing, window?: Partial<TraceWindow>): TracedCurve {
+  const s = parseMapSettings(settingsInput)
+  const m = compilePattern(doc)
+  const w: TraceWindow = { aMin: s.x.min, aMax: s.x.max, bMin: s.y.min, bMax: s.y.max, ...window }
+  const u = Float64Array.from(crossing.u)
+  if (crossing.kind === 'collapse') {
+    if (s.plane !== 'tau') throw new Error('maps: collapse curves live in the τ plane')
+    const positions = new Float64Array(2 * m.nVertices)
+    positions[0] = m.positions[0]!; positions[1] = m.positions[1]!; positions.set(u, 2)
+    const e = shortestEdge(m, positions, crossing.x, crossing.y, s.scaleBy)
+    const c = collapseCurveProblem(m, e, s.scaleBy)
+    return { ...traceCurve('collapse', c.problem, c.startY(positions, crossing.x, crossing.y), crossing.x, w), kind: `collapse of edge ${m.edgeIds[e]}` }
+  }
+  if (crossing.kind !== 'rigidity loss' && crossing.kind !== 'branch point') throw new Error(`maps: no curve tracer for '${crossing.kind}'`)
+  const p = planeTwoParameterProblem(m, s)
+  const nv = nullVectors(p, u, crossing.x, crossing.y)
+  const y0 = new Float64Array(p.n + 1); y0.set(u); y0[p.n] = crossing.y
+  return traceCurve('rigidity loss', rigidityLossCurveProblem(p, nv.right, nv.left), y0, crossing.x, w)
+}

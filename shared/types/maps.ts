@@ -1,0 +1,119 @@
+/**
+ * Moduli map settings and results: a grid over the τ plane (τ = ω2/ω1, lattice scale fixed by
+ * the cell area or by |ω1|) or over the (α1, α2) plane, solved row by row by continuation from a
+ * seed. One schema for the browser, the server (stored with the map, re-used by verification)
+ * and the CLI.
+ */
+import { z } from 'zod'
+
+/** The two planes a map can cover. */
+export const MAP_PLANES = ['tau', 'alpha'] as const
+export type MapPlane = (typeof MAP_PLANES)[number]
+
+/** How the lattice scale is fixed in the τ plane. */
+export const MAP_SCALE_MODES = ['area', 'w1'] as const
+
+/** Quantities a cell records (the heat map shows one of them). */
+export const MAP_QUANTITIES = ['sigmaMin', 'negativeEigenvalues', 'minEdgeRatio', 'lengthPerRootArea', 'minCos'] as const
+export type MapQuantity = (typeof MAP_QUANTITIES)[number]
+
+/** Largest number of values on one axis (a 201 × 201 map has 40 401 cells). */
+export const MAP_AXIS_MAX_COUNT = 201
+
+/** One axis: `count` equally spaced values from `min` to `max` (both included). */
+export const MapAxisSchema = z.strictObject({
+  min: z.number().finite(),
+  max: z.number().finite(),
+  count: z.number().int().min(1).max(MAP_AXIS_MAX_COUNT),
+}).refine(a => a.count === 1 || a.max > a.min, { message: 'max must exceed min when count > 1' })
+export type MapAxis = z.infer<typeof MapAxisSchema>
+
+/** Everything needed to reproduce a map. */
+export const MapSettingsSchema = z.strictObject({
+  plane: z.enum(MAP_PLANES).describe("'tau': x = Re τ, y = Im τ; 'alpha': x = α1, y = α2"),
+  x: MapAxisSchema.describe('columns (Re τ or α1)'),
+  y: MapAxisSchema.describe('rows (Im τ or α2)'),
+  scaleBy: z.enum(MAP_SCALE_MODES).default('area').describe("τ plane: keep the cell area ('area') or |ω1| ('w1') of the document"),
+  seed: z.tuple([z.number().finite(), z.number().finite()]).optional().describe('start point (x, y); default: the document τ or α'),
+  collapseTolerance: z.number().positive().lt(1).default(1e-3).describe('a row ends when the shortest edge is below this fraction of the mean'),
+  orderFlip: z.boolean().default(true).describe('a row ends when two half-edges at a vertex swap their cyclic order'),
+  maxStep: z.number().positive().optional().describe('largest arclength step (default: the grid spacing)'),
+  maxPointsPerRow: z.number().int().min(10).default(5000).describe('continuation points per half row before giving up'),
+}).superRefine((s, ctx) => {
+  if (s.plane === 'tau' && s.y.min <= 0) ctx.addIssue({ code: 'custom', path: ['y', 'min'], message: 'Im τ must be positive' })
+  if (s.plane === 'tau' && s.seed && s.seed[1] <= 0) ctx.addIssue({ code: 'custom', path: ['seed'], message: 'the seed needs Im τ > 0' })
+})
+/** Settings as stored (defaults filled). */
+export type MapSettings = z.infer<typeof MapSettingsSchema>
+export type MapSettingsInput = z.input<typeof MapSettingsSchema>
+
+/** Parses map settings; throws an Error listing every problem. */
+export function parseMapSettings(input: unknown): MapSettings {
+  const r = MapSettingsSchema.safeParse(input)
+  if (!r.success) throw new Error(`invalid map settings: ${r.error.issues.map(i => `${i.path.join('.') || '(root)'}: ${i.message}`).join('; ')}`)
+  return r.data
+}
+
+/** The values of an axis. */
+export function axisValues(a: MapAxis): number[] {
+  if (a.count === 1) return [a.min]
+  return Array.from({ length: a.count }, (_, k) => a.min + (a.max - a.min) * k / (a.count - 1))
+}
+
+/** One grid cell. Unreachable cells carry `endedBy` (why continuation did not get there). */
+export interface MapCell {
+  /** Row (y index) and column (x index). */
+  i: number
+  j: number
+  x: number
+  y: number
+  status: 'solved' | 'unreachable'
+  /** Dimensionless σ_min of F_u (× mean edge length for drawings, ÷ mean weight for phases). */
+  sigmaMin?: number
+  /** Negative eigenvalues of F_u (LDLᵀ inertia); absent when LU replaced LDLᵀ. */
+  negativeEigenvalues?: number
+  /** Shortest edge / mean edge (drawings). */
+  minEdgeRatio?: number
+  /** Total length / √(cell area) (drawings). */
+  lengthPerRootArea?: number
+  /** Smallest cos φ_e (phases). */
+  minCos?: number
+  /** max|F| at the cell and the λ the engine located (x, up to the locate tolerance). */
+  residualNorm?: number
+  lambda?: number
+  /** The state (positions of vertices 1..V−1, or phases 1..V−1): restart and verification. */
+  u?: number[]
+  /** For unreachable cells: "collapse", "order flip", "lattice degeneracy", "fold", "no convergence", "row unreachable". */
+  endedBy?: string
+}
+
+/** A special point met while sweeping (rigidity loss, branch point, or the event ending a half row). */
+export interface MapCrossing { kind: string; x: number; y: number; along: 'row' | 'column'; lambda: number; u: number[] }
+
+/** One row: its cells and how each half (towards smaller / larger x) ended. */
+export interface MapRow {
+  i: number
+  y: number
+  cells: MapCell[]
+  endedLeft?: string
+  endedRight?: string
+  crossings: MapCrossing[]
+}
+
+/** The state at the spine cell of a row: where that row's continuation starts. */
+export interface MapRowStart { i: number; y: number; u?: number[]; endedBy?: string }
+
+/** A whole map. */
+export interface MapResult {
+  settings: MapSettings
+  xs: number[]
+  ys: number[]
+  /** Column of the spine (the column continued from the seed). */
+  spineColumn: number
+  seed: [number, number]
+  rows: MapRow[]
+  /** Crossings found along the spine. */
+  spineCrossings: MapCrossing[]
+  /** Rows not computed (cancelled). */
+  missingRows: number[]
+}
