@@ -18,6 +18,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   balance: () => import('./commands/balance'),
   schema: () => import('./commands/schema'),
   follow: () => import('./commands/follow'),
+  map: () => import('./commands/map'),
 }
 
 async function help(): Promise<string> {

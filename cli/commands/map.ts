@@ -1,0 +1,96 @@
+/**
+ * `wingfold map FILE --plane tau --re MIN:MAX:N --im MIN:MAX:N [--json | --csv]`: a moduli map
+ * of the pattern over the τ plane (or `--plane alpha --a1 … --a2 …`), swept row by row by
+ * continuation from the seed (shared/maps).
+ */
+import { readFile } from 'node:fs/promises'
+import { parseArgs } from 'node:util'
+import { mapToCsv, mapToText, runMapSweep } from '../../shared/maps'
+import type { MapSettingsInput } from '../../shared/types/maps'
+import { readPatternFile } from '../read-document'
+
+export const summary = 'FILE --plane tau --re A:B:N --im A:B:N  moduli map (or --plane alpha --a1 … --a2 …); --json or --csv'
+
+const USAGE = `Usage: wingfold map FILE --plane tau --re MIN:MAX:N --im MIN:MAX:N [--json | --csv]
+       wingfold map FILE --plane alpha --a1 MIN:MAX:N --a2 MIN:MAX:N [--json | --csv]
+  --scale area|w1            τ plane: keep the cell area (default) or |ω1|
+  --seed X,Y                 start point (default: the document's τ or α)
+  --collapse-tolerance T     shortest edge / mean edge that ends a row (default 1e-3)
+  --settings FILE            full map settings (JSON) instead of the options above`
+
+function axis(s: string | undefined, name: string): { min: number; max: number; count: number } {
+  const parts = (s ?? '').split(':').map(Number)
+  if (parts.length !== 3 || parts.some(p => !Number.isFinite(p))) throw new Error(`--${name} wants MIN:MAX:N, got '${s ?? ''}'`)
+  return { min: parts[0]!, max: parts[1]!, count: parts[2]! }
+}
+
+/** Settings from the command-line options. */
+function settingsFrom(v: Record<string, string | undefined>): MapSettingsInput {
+  const plane = v.plane ?? 'tau'
+  const [xs, ys] = plane === 'alpha' ? ['a1', 'a2'] : ['re', 'im']
+  return {
+    plane: plane as MapSettingsInput['plane'],
+    x: axis(v[xs!], xs!), y: axis(v[ys!], ys!),
+    ...(v.scale ? { scaleBy: v.scale as MapSettingsInput['scaleBy'] } : {}),
+    ...(v.seed ? { seed: v.seed.split(',').map(Number) as [number, number] } : {}),
+    ...(v['collapse-tolerance'] ? { collapseTolerance: Number(v['collapse-tolerance']) } : {}),
+  }
+}
+
+const VALUE_OPTIONS = new Set(['--re', '--im', '--a1', '--a2', '--seed'])
+
+/** Joins `--re -0.5:0.5:41` into `--re=-0.5:0.5:41` (node's parseArgs reads a leading '-' as an option). */
+function joinNegativeValues(args: string[]): string[] {
+  const out: string[] = []
+  for (let k = 0; k < args.length; k++) {
+    const a = args[k]!, b = args[k + 1]
+    if (VALUE_OPTIONS.has(a) && b !== undefined && /^-[\d.]/.test(b)) { out.push(`${a}=${b}`); k++ } else out.push(a)
+  }
+  return out
+}
+
+/** Runs the command; returns the exit code (0 done, 2 bad usage or input). */
+export async function run(args: string[]): Promise<number> {
+  let parsed
+  try {
+    parsed = parseArgs({
+      args: joinNegativeValues(args), allowPositionals: true,
+      options: {
+        'plane': { type: 'string' }, 're': { type: 'string' }, 'im': { type: 'string' }, 'a1': { type: 'string' }, 'a2': { type: 'string' },
+        'scale': { type: 'string' }, 'seed': { type: 'string' }, 'collapse-tolerance': { type: 'string' }, 'settings': { type: 'string' },
+        'json': { type: 'boolean' }, 'csv': { type: 'boolean' },
+      },
+    })
+  } catch (e) {
+    console.error(`wingfold map: ${(e as Error).message}\n${USAGE}`)
+    return 2
+  }
+  const v = parsed.values as Record<string, string | undefined> & { json?: boolean; csv?: boolean }
+  const file = parsed.positionals[0]
+  if (parsed.positionals.length !== 1 || !file) { console.error(USAGE); return 2 }
+  const input = await readPatternFile(file)
+  if ('error' in input) { console.error(input.error); return 2 }
+  let map
+  const t0 = performance.now()
+  try {
+    const settings = v.settings ? JSON.parse(await readFile(v.settings, 'utf8')) as unknown : settingsFrom(v)
+    map = runMapSweep(input.doc, settings)
+  } catch (e) {
+    console.error(`wingfold map: ${(e as Error).message}`)
+    return 2
+  }
+  const ms = performance.now() - t0
+  if (v.json) process.stdout.write(`${JSON.stringify(map)}\n`)
+  else if (v.csv) process.stdout.write(mapToCsv(map))
+  else {
+    const cells = map.rows.flatMap(r => r.cells)
+    const solved = cells.filter(c => c.status === 'solved').length
+    const ended = new Map<string, number>()
+    for (const c of cells) if (c.endedBy) ended.set(c.endedBy, (ended.get(c.endedBy) ?? 0) + 1)
+    console.log(`${map.settings.plane} map ${map.xs.length}×${map.ys.length}: ${solved} cells solved, ${cells.length - solved} unreachable (${[...ended].map(([k, n]) => `${k}: ${n}`).join(', ') || 'none'}); ${ms.toFixed(0)} ms`)
+    console.log('digits: negative eigenvalues of F_u; "." unreachable; ^ spine column')
+    console.log(mapToText(map))
+    for (const c of [...map.spineCrossings, ...map.rows.flatMap(r => r.crossings)]) console.log(`  ${c.kind.padEnd(18)} at (${c.x.toPrecision(10)}, ${c.y.toPrecision(10)}) along a ${c.along}`)
+  }
+  return 0
+}
