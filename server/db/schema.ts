@@ -221,3 +221,28 @@ export const signInFailures = sqliteTable('sign_in_failures', {
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 }, t => [index('sign_in_failures_email_idx').on(t.email, t.createdAt), index('sign_in_failures_ip_idx').on(t.ip, t.createdAt)])
+
+/**
+ * A saved moduli map: its settings, the whole result (cells with their states, rows, crossings,
+ * traced curves) as JSON, and the server's verification of a sample of cells with the same core.
+ */
+export const maps = sqliteTable('maps', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  projectId: integer('project_id').notNull().references(() => projects.id, { onDelete: 'cascade' }),
+  graphVersionId: integer('graph_version_id').notNull().references(() => graphVersions.id, { onDelete: 'restrict' }),
+  name: text('name').notNull(),
+  plane: text('plane').notNull(),
+  settings: text('settings').notNull(),
+  result: text('result').notNull(),
+  cellCount: integer('cell_count').notNull(),
+  solvedCount: integer('solved_count').notNull(),
+  /** Wall time of the computation as reported by the browser (ms) and the number of workers. */
+  wallMs: real('wall_ms'),
+  workers: integer('workers'),
+  verification: text('verification', { enum: VERIFICATION_STATES }).notNull().default('pending'),
+  verificationReason: text('verification_reason'),
+  appVersion: text('app_version').notNull(),
+  authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [index('maps_project_idx').on(t.projectId)])
