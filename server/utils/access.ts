@@ -1,14 +1,25 @@
 /**
  * Access decisions in one place. Pages and routes never repeat these checks.
- * Rules: signed-out → 401; a project the user is not a member of → 404 (its existence is not
+ * Rules: signed-out (no session, no valid API token) → 401; a project the user is not a member of → 404 (its existence is not
  * revealed); a member below the required role → 403. Site admins do not bypass project roles.
  */
 import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
 import { roleAtLeast, type ProjectRole } from '#shared/types/roles'
 
-/** The signed-in user of the session, or a 401. */
+/**
+ * The caller: the user of a valid `Authorization: Bearer` API token (see api-tokens.ts; a
+ * read-scoped token is refused with 403 on methods that write), else the signed-in user of the
+ * session, else a 401.
+ */
 export async function requireUser(event: H3Event) {
+  const token = bearerToken(event)
+  if (token) return (await userFromBearer(event, token)).user
+  return requireSessionUser(event)
+}
+
+/** The user of the session cookie only (API tokens not accepted, e.g. to manage tokens), or a 401. */
+export async function requireSessionUser(event: H3Event) {
   const { user } = await requireUserSession(event, { message: 'Sign in first.' })
   return user
 }

@@ -1,0 +1,43 @@
+import { eq } from 'drizzle-orm'
+import { invitationAcceptSchema, invitationSignUpSchema, tokenParamsSchema } from '#shared/types/team'
+
+/**
+ * Accept an invitation: the signed-in user whose address was invited, else the existing account
+ * of that address with its password, else a new account (name + password; allowed even when
+ * sign-up is closed, since the owner invited this address). Adds the membership and signs in.
+ */
+export default defineEventHandler(async (event) => {
+  const { token } = await getValidatedRouterParams(event, tokenParamsSchema.parse)
+  const { invitation } = await openInvitation(token)
+  const body = await readValidatedBody(event, invitationAcceptSchema.parse)
+  const session = await getUserSession(event)
+  if (session.user && session.user.email !== invitation.email) {
+    throw httpError(403, 'wrong_account', `This invitation is for ${invitation.email}. Sign out, then open the link again.`)
+  }
+  const db = useDb()
+  let user = session.user ?? await db.query.users.findFirst({ where: eq(tables.users.email, invitation.email), columns: { id: true, email: true, name: true, siteRole: true } })
+  if (user && !session.user) await checkPassword(event, invitation.email, body.password ?? '')
+  const signUp = user ? null : invitationSignUpSchema.safeParse(body)
+  if (signUp && !signUp.success) throw httpError(400, 'invalid_sign_up', signUp.error.issues[0]!.message)
+  if (!(await claimInvitation(invitation.id))) throw httpError(410, 'invitation_used', 'This invitation has already been used.')
+  if (signUp?.success) {
+    const [created] = await db.insert(tables.users).values({ name: signUp.data.name, email: invitation.email, passwordHash: await hashPassword(signUp.data.password) })
+      .returning({ id: tables.users.id, email: tables.users.email, name: tables.users.name, siteRole: tables.users.siteRole })
+    user = created!
+  }
+  await db.insert(tables.memberships).values({ projectId: invitation.projectId, userId: user!.id, role: invitation.role }).onConflictDoNothing()
+  await logActivity({ projectId: invitation.projectId, actorId: user!.id, verb: 'joined', objectType: 'member', objectId: user!.id, data: { role: invitation.role, invitationId: invitation.id } })
+  if (!session.user) await setUserSession(event, { user: { id: user!.id, email: user!.email, name: user!.name, siteRole: user!.siteRole }, loggedInAt: Date.now() })
+  return { projectId: invitation.projectId, role: invitation.role }
+})
+
+/** Verify the existing account's password, with the sign-in rate limits. */
+async function checkPassword(event: Parameters<typeof clientAddress>[0], email: string, password: string) {
+  const ip = clientAddress(event)
+  await assertSignInAllowed(email, ip)
+  const u = await useDb().query.users.findFirst({ where: eq(tables.users.email, email), columns: { passwordHash: true } })
+  if (!u || !(await verifyPassword(u.passwordHash, password))) {
+    await recordSignInFailure(email, ip)
+    throw httpError(401, 'bad_credentials', 'Wrong password for this account.')
+  }
+}

@@ -1,0 +1,30 @@
+/** Comment helpers: run access, loading a comment, shaping it for the API. */
+import type { H3Event } from 'h3'
+import { and, eq } from 'drizzle-orm'
+import type { ProjectRole } from '#shared/types/roles'
+import type { CommentItem } from '#shared/types/team'
+
+/** The run (404 when missing or in a project the caller cannot see) and the caller's project role. */
+export async function requireRunForComments(event: H3Event, runId: number, minRole: ProjectRole) {
+  const run = await useDb().query.runs.findFirst({ where: eq(tables.runs.id, runId), columns: { id: true, projectId: true, name: true, authorId: true } })
+  if (!run) throw httpError(404, 'run_not_found', 'No such run.')
+  const access = await requireProjectRole(event, run.projectId, minRole)
+  return { run, ...access }
+}
+
+/** A comment of this run, or a 404. */
+export async function findComment(runId: number, commentId: number) {
+  const c = tables.comments
+  const row = await useDb().query.comments.findFirst({ where: and(eq(c.id, commentId), eq(c.runId, runId)) })
+  if (!row) throw httpError(404, 'comment_not_found', 'No such comment on this run.')
+  return row
+}
+
+/** Shape a comment row for a viewer with `role` and id `viewerId`. */
+export function toCommentItem(r: typeof tables.comments.$inferSelect, author: { id: number, name: string } | null, viewerId: number, role: ProjectRole): CommentItem {
+  const own = r.authorId === viewerId
+  return {
+    id: r.id, parentId: r.parentId, pointIndex: r.pointIndex, author, body: r.body, html: renderCommentMarkdown(r.body),
+    edited: r.edited, canEdit: own, canDelete: own || role === 'owner', createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
+  }
+}
