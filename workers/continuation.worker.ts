@@ -7,6 +7,7 @@
  */
 import { expose } from 'comlink'
 import { FamilyRunner, type BatchOptions, type FamilyBatch, type FamilyRunResult } from '../shared/families/runner'
+import type { ContinuationStart } from '../shared/continuation/types'
 import type { FamilySettingsInput } from '../shared/types/family'
 import type { PatternDocument } from '../shared/types/pattern'
 
@@ -18,12 +19,13 @@ export function createContinuationWorkerApi() {
     /**
      * Runs a family to its end; `onBatch` (wrap it in `Comlink.proxy`) gets each batch.
      * Throws on invalid settings, a document the path does not apply to, or a run in progress.
+     * `from` restarts at a stored point (see FamilyRunner).
      */
-    async start(doc: PatternDocument, settings: FamilySettingsInput, onBatch: (b: FamilyBatch) => void | Promise<void>, batch?: BatchOptions): Promise<FamilyRunResult> {
+    async start(doc: PatternDocument, settings: FamilySettingsInput, onBatch: (b: FamilyBatch) => void | Promise<void>, batch?: BatchOptions, from?: ContinuationStart): Promise<FamilyRunResult> {
       if (running) throw new Error('continuation worker: a run is in progress; cancel it first')
       running = true
       try {
-        runner = new FamilyRunner(doc, settings)
+        runner = new FamilyRunner(doc, settings, from)
         return await runner.start(onBatch, batch)
       } finally { running = false }
     },

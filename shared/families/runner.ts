@@ -5,7 +5,7 @@
  * computed so far and the reason.
  */
 import { createContinuation, type Continuation } from '../continuation/engine'
-import type { BranchResult, ContinuationPoint, SpecialPoint } from '../continuation/types'
+import type { BranchResult, ContinuationPoint, ContinuationStart, SpecialPoint } from '../continuation/types'
 import { parseFamilySettings, type FamilySettings, type FamilySettingsInput } from '../types/family'
 import type { PatternDocument } from '../types/pattern'
 import { setupFamily, type FamilySetup } from './build'
@@ -74,11 +74,14 @@ export class FamilyRunner {
   /** Whether a batch has carried the start point yet. */
   private startDelivered = false
 
-  /** Throws on invalid settings or a document the path does not apply to. */
-  constructor(doc: PatternDocument, settings: FamilySettingsInput | FamilySettings) {
+  /**
+   * Throws on invalid settings or a document the path does not apply to. `from` restarts the
+   * family at a stored point (`restartFrom(point)` of the engine) instead of the document's start.
+   */
+  constructor(doc: PatternDocument, settings: FamilySettingsInput | FamilySettings, from?: ContinuationStart) {
     this.settings = parseFamilySettings(settings)
     this.setup = setupFamily(doc, this.settings)
-    this.run = createContinuation(this.setup.problem, this.setup.start, this.setup.options, { id: `family-${this.settings.path.kind}` })
+    this.run = createContinuation(this.setup.problem, from ?? this.setup.start, this.setup.options, { id: `family-${this.settings.path.kind}` })
     this.stepSize = this.run.options.initialStep
     if (!this.run.started) this.status = 'refused'
   }
