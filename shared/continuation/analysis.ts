@@ -25,8 +25,11 @@ export interface PointAnalysis {
   M: BorderedMatrix
 }
 
-/** Analyse the corrected point y with previous direction c. */
-export function analysePoint(problem: ContinuationProblem, solver: BorderedSolver, y: Float64Array, c: Float64Array, sigmaIterations: number):
+/**
+ * Analyse the corrected point y with previous direction c. `warm`: the previous point's σ_min
+ * vector; from it ⌈sigmaIterations/2⌉ inverse iterations are made instead of sigmaIterations.
+ */
+export function analysePoint(problem: ContinuationProblem, solver: BorderedSolver, y: Float64Array, c: Float64Array, sigmaIterations: number, warm?: Float64Array):
   { ok: true; a: PointAnalysis } | { ok: false; reason: string } {
   const n = problem.n
   let M: BorderedMatrix
@@ -46,7 +49,8 @@ export function analysePoint(problem: ContinuationProblem, solver: BorderedSolve
   if (problem.symmetric && M.fu.ok && M.fu.inertia) tests.negativeEigenvalues = M.fu.inertia.negative
   let sigma: number | undefined, sigmaVector: Float64Array | undefined
   if (problem.sigmaMin !== false) {
-    if (M.fu.ok) ({ sigma, vector: sigmaVector } = estimateSigmaMin(M.fu.factor, problem.symmetric === true, sigmaIterations))
+    const iterations = warm ? Math.ceil(sigmaIterations / 2) : sigmaIterations
+    if (M.fu.ok) ({ sigma, vector: sigmaVector } = estimateSigmaMin(M.fu.factor, problem.symmetric === true, iterations, warm))
     else sigma = 0
   }
   return { ok: true, a: { y, t, tests, detLogAbs: det?.logAbs ?? NaN, sigma, sigmaVector, M } }

@@ -9,6 +9,8 @@
  * With `chord` the first iteration's bordered matrix is kept for all iterations (chord or
  * simplified Newton: J. M. Ortega, W. C. Rheinboldt, Iterative Solution of Nonlinear Equations
  * in Several Variables, 1970, §7.1), trading quadratic convergence for fewer factorisations.
+ * A caller may hand in that matrix (`initial`): the engine passes the one already factorised at
+ * the previous point, so a chord step costs no factorisation of its own.
  */
 import type { ContinuationProblem } from './types'
 import type { BorderedMatrix, BorderedSolver, PointJacobian } from './bordered'
@@ -39,12 +41,15 @@ export function residualNormAt(problem: ContinuationProblem, y: Float64Array, wo
 }
 
 /** Newton on [F; cᵀy − target] = 0 from the guess y0. */
-export function correct(problem: ContinuationProblem, solver: BorderedSolver, y0: Float64Array, c: Float64Array, target: number, s: CorrectorSettings): CorrectorResult {
+export function correct(
+  problem: ContinuationProblem, solver: BorderedSolver, y0: Float64Array, c: Float64Array, target: number, s: CorrectorSettings,
+  initial?: BorderedMatrix,
+): CorrectorResult {
   const n = problem.n
   const y = y0.slice()
   const F = new Float64Array(n)
   let lastUpdate = Infinity
-  let M: BorderedMatrix | undefined
+  let M: BorderedMatrix | undefined = s.chord ? initial : undefined
   for (let k = 0; ; k++) {
     problem.residual(y.subarray(0, n), y[n]!, F)
     const res = normInf(F)

@@ -46,6 +46,7 @@ export class Continuation {
   private prevY?: Float64Array
   private ds: number
   private first!: { y: Float64Array; t: Float64Array }
+  private readonly fullNewton: { maxNewtonIterations: number; residualTolerance: number; stepTolerance: number; chord: false }
 
   constructor(readonly problem: ContinuationProblem, start: ContinuationStart, options: ContinuationOptions = {}, readonly branch: BranchInfo = { id: 'branch-1' }) {
     validateProblem(problem)
@@ -63,6 +64,7 @@ export class Continuation {
       corrector: { maxNewtonIterations: o.maxNewtonIterations, residualTolerance: o.residualTolerance, stepTolerance: o.stepTolerance, chord: o.chordNewton },
       sigmaIterations: o.sigmaIterations, locateTolerance: o.locateTolerance, maxLocateIterations: o.maxLocateIterations,
     }
+    this.fullNewton = { ...this.ctx.corrector, chord: false }
     this.ds = Math.min(o.maxStep, Math.max(o.minStep, start.stepSize ?? o.initialStep))
     this.begin(pack(start.u, start.lambda), start.tangent)
   }
@@ -73,7 +75,7 @@ export class Continuation {
     const J0 = jacobianAt(problem, y0)
     if (J0.Fu.nRows !== n || J0.Fu.nCols !== n || J0.Flambda.length !== n) throw new Error(`continuation: jacobian() must return an ${n}×${n} F_u and F_λ of length ${n}`)
     const eLambda = new Float64Array(n + 1); eLambda[n] = 1
-    const r = correct(problem, solver, y0, eLambda, y0[n]!, this.ctx.corrector)
+    const r = correct(problem, solver, y0, eLambda, y0[n]!, this.fullNewton) // the start gets full Newton: no previous factorisation to reuse
     if (!r.converged) return this.refuse(`Newton did not converge at the start point: ${r.reason}`)
     if (!o.allowSingularStart) {
       const J = jacobianAt(problem, r.y)
@@ -171,9 +173,15 @@ export class Continuation {
     const a0 = this.cur
     const c = o.predictor === 'secant' && this.prevY ? normalized(axpy(a0.y, -1, this.prevY)) : a0.t
     const ds = this.ds
-    const r = correct(problem, solver, axpy(a0.y, ds, c), c, dot(c, a0.y) + ds, this.ctx.corrector)
+    const guess = axpy(a0.y, ds, c), target = dot(c, a0.y) + ds
+    // Chord: first with F_u as factorised at the previous point (no new factorisation); where that
+    // does not converge (e.g. an edge about to collapse makes F_u change fast), full Newton.
+    let r = o.chordNewton && a0.M.fu.ok
+      ? correct(problem, solver, guess, c, target, this.ctx.corrector, solver.prepare(a0.M.J, c, a0.M.fu))
+      : undefined
+    if (!r?.converged) r = correct(problem, solver, guess, c, target, r ? this.fullNewton : this.ctx.corrector)
     if (!r.converged) return this.reject(r.reason ?? 'corrector failed')
-    const an = analysePoint(problem, solver, r.y, c, o.sigmaIterations)
+    const an = analysePoint(problem, solver, r.y, c, o.sigmaIterations, a0.sigmaVector)
     if (!an.ok) return this.reject(an.reason)
     const turn = Math.acos(Math.max(-1, Math.min(1, dot(a0.t, an.a.t))))
     if (turn > o.maxTurnAngle) return this.reject(`tangent turned by ${turn.toFixed(3)} rad > maxTurnAngle`)

@@ -25,8 +25,8 @@ export interface ContinuationOptions {
   /** Newton iterations per corrector. Default 10. */
   maxNewtonIterations?: number
   /**
-   * Chord Newton: factorise the bordered matrix once per corrector (at the predicted point) and
-   * reuse it for every iteration (linear instead of quadratic convergence, one factorisation
+   * Chord Newton: reuse F_u as factorised at the previous point for every corrector iteration
+   * (falling back to full Newton for that step when it does not converge) (linear instead of quadratic convergence, one factorisation
    * instead of one per iteration). Default false. With it, raise fastIterations if steps should
    * still grow (chord needs more, cheaper iterations).
    */

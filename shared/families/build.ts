@@ -64,8 +64,9 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
     ...(s.min !== undefined ? { minStep: s.min } : {}),
     ...(s.max !== undefined ? { maxStep: s.max } : {}),
     ...(s.maxNewtonIterations !== undefined ? { maxNewtonIterations: s.maxNewtonIterations } : {}),
-    // chord iterations converge linearly: allow more of them before a step counts as slow
-    ...(s.chord ? { chordNewton: true, fastIterations: 6 } : {}),
+    // chord (default): one factorisation per step instead of one per Newton iteration (npm run
+    // bench); its iterations converge linearly, so allow more before a step counts as slow
+    ...(s.chord !== false ? { chordNewton: true, fastIterations: 6 } : {}),
   }
   if (settings.to > lambda0) o.lambdaMax = settings.to
   else if (settings.to < lambda0) o.lambdaMin = settings.to

@@ -39,7 +39,7 @@ export const FamilyStepSchema = z.strictObject({
   min: z.number().positive().optional().describe('smallest step before giving up (default 1e-8)'),
   max: z.number().positive().optional().describe('largest step (default 0.5)'),
   maxNewtonIterations: z.number().int().min(1).optional().describe('Newton iterations per step (default 10)'),
-  chord: z.boolean().optional().describe('chord Newton: one factorisation per corrector instead of one per iteration (default false)'),
+  chord: z.boolean().optional().describe('chord Newton: reuse the previous point’s factorisation in the corrector instead of one per iteration (default true)'),
 })
 
 /** When the run stops. */
