@@ -1,0 +1,4 @@
+/** Date-time of an ISO string for tables and threads ("2 Dec 2026, 02:10"); `fallback` for null. */
+export function formatWhen(iso: string | null, fallback = '—'): string {
+  return iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : fallback
+}
