@@ -3,6 +3,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { useTestServer } from '../support/fixtures'
 import { signInAs, type ApiClient } from '../support/http'
 import { sqlOnServer } from './team-support'
+import { PATTERN_EXAMPLES } from '../../shared/examples'
 
 const ctx = useTestServer()
 let owner: ApiClient
@@ -80,5 +81,21 @@ describe('API tokens', () => {
     const { token } = await createToken('writer-2', 'write')
     expect((await withToken(token, 'POST', '/api/account/tokens', { name: 'more', scope: 'write' })).status).toBe(401)
     expect((await withToken(token, 'GET', '/api/account/tokens')).status).toBe(401)
+  })
+
+  it('lists and uploads patterns as docs/api.md shows, on the same routes as the app', async () => {
+    const projectId = ((await owner.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>).find(p => p.name === 'Genus-three torus gluings')!.id
+    const reader = await createToken('lister', 'read')
+    const listed = await withToken(reader.token, 'GET', `/api/projects/${projectId}/graphs`)
+    expect(listed.status).toBe(200)
+    expect(listed.body).toEqual((await owner.json('GET', `/api/projects/${projectId}/graphs`)).body)
+    const example = PATTERN_EXAMPLES.find(e => e.document.space === 'torus')!
+    const upload = { name: 'Uploaded by a script', message: 'From the notebook', document: example.document }
+    expect((await withToken(reader.token, 'POST', `/api/projects/${projectId}/graphs`, upload)).status).toBe(403)
+    const writer = await createToken('uploader', 'write')
+    const created = await withToken(writer.token, 'POST', `/api/projects/${projectId}/graphs`, upload)
+    expect(created.status, JSON.stringify(created.body)).toBe(201)
+    const after = (await withToken(reader.token, 'GET', `/api/projects/${projectId}/graphs`)).body as Array<{ id: number, name: string }>
+    expect(after.find(g => g.id === created.body.id)?.name).toBe('Uploaded by a script')
   })
 })
