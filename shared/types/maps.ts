@@ -117,3 +117,77 @@ export interface MapResult {
   /** Rows not computed (cancelled). */
   missingRows: number[]
 }
+
+const finite = z.number().finite()
+const optFinite = finite.optional()
+
+/** A cell as posted to the server. */
+export const MapCellSchema = z.strictObject({
+  i: z.number().int().min(0), j: z.number().int().min(0), x: finite, y: finite,
+  status: z.enum(['solved', 'unreachable']),
+  sigmaMin: optFinite, negativeEigenvalues: z.number().int().min(0).optional(), minEdgeRatio: optFinite,
+  lengthPerRootArea: optFinite, minCos: optFinite, residualNorm: optFinite, lambda: optFinite,
+  u: z.array(finite).max(20000).optional(), endedBy: z.string().max(200).optional(),
+})
+
+const CrossingSchema = z.strictObject({ kind: z.string().max(60), x: finite, y: finite, along: z.enum(['row', 'column']), lambda: finite, u: z.array(finite).max(20000) })
+
+/** A traced curve as stored with a map. */
+export const MapCurveSchema = z.strictObject({ kind: z.string().max(120), points: z.array(z.tuple([finite, finite])).max(20000) })
+export type MapCurve = z.infer<typeof MapCurveSchema>
+
+/** The result as posted (the server re-checks the grid against the settings). */
+export const MapResultSchema = z.strictObject({
+  settings: z.unknown(),
+  xs: z.array(finite).max(MAP_AXIS_MAX_COUNT), ys: z.array(finite).max(MAP_AXIS_MAX_COUNT),
+  spineColumn: z.number().int().min(0), seed: z.tuple([finite, finite]),
+  rows: z.array(z.strictObject({
+    i: z.number().int().min(0), y: finite, cells: z.array(MapCellSchema).max(MAP_AXIS_MAX_COUNT),
+    endedLeft: z.string().max(200).optional(), endedRight: z.string().max(200).optional(), crossings: z.array(CrossingSchema).max(1000),
+  })).max(MAP_AXIS_MAX_COUNT),
+  spineCrossings: z.array(CrossingSchema).max(1000),
+  missingRows: z.array(z.number().int().min(0)).max(MAP_AXIS_MAX_COUNT),
+})
+
+/** POST /api/projects/:id/maps. */
+export const MapCreateSchema = z.strictObject({
+  graphId: z.number().int().positive(),
+  version: z.number().int().positive().optional(),
+  name: z.string().trim().min(1).max(120),
+  settings: MapSettingsSchema,
+  result: MapResultSchema,
+  curves: z.array(MapCurveSchema).max(50).default([]),
+  wallMs: z.number().nonnegative().optional(),
+  workers: z.number().int().min(1).max(256).optional(),
+})
+export type MapCreateInput = z.input<typeof MapCreateSchema>
+
+/** Route parameters of /api/maps/:mapId. */
+export const mapRouteParamsSchema = z.object({ mapId: z.coerce.number().int().positive() })
+
+/** A saved map in lists (no cells). */
+export interface MapSummary {
+  id: number
+  projectId: number
+  name: string
+  plane: MapPlane
+  graphId: number
+  graphName: string
+  version: number
+  cellCount: number
+  solvedCount: number
+  wallMs: number | null
+  workers: number | null
+  verification: 'pending' | 'verified' | 'rejected'
+  verificationReason: string | null
+  authorName: string | null
+  createdAt: string
+}
+
+/** A saved map with everything. */
+export interface MapDetail extends MapSummary {
+  settings: MapSettings
+  result: MapResult
+  curves: MapCurve[]
+  document: unknown
+}

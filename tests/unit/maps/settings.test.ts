@@ -44,3 +44,21 @@ describe('sweep bookkeeping', () => {
     expect(r.offending).toHaveLength(1)
   })
 })
+
+describe('document at a cell', () => {
+  it('is balanced at the cell: the pattern core re-checks it as a fresh document (analyzePattern)', async () => {
+    const { documentAtCell } = await import('../../../shared/maps')
+    const { analyzePattern } = await import('../../../shared/pattern')
+    const fermat = findPatternExample('fermat-pair')!.document
+    const s = parseMapSettings({ plane: 'tau', x: { min: 0.2, max: 0.4, count: 2 }, y: { min: 1.1, max: 1.3, count: 2 } })
+    const cell = runMapSweep(fermat, s).rows[1]!.cells[1]!
+    const d = documentAtCell(fermat, s, cell)
+    const [w1, w2] = [d.lattice!.w1, d.lattice!.w2]
+    // τ = ω2/ω1 of the cell's lattice (complex division)
+    const n = w1[0] ** 2 + w1[1] ** 2
+    expect((w2[0] * w1[0] + w2[1] * w1[1]) / n).toBeCloseTo(cell.x, 12)
+    expect((w2[1] * w1[0] - w2[0] * w1[1]) / n).toBeCloseTo(cell.y, 12)
+    const report = analyzePattern(d) as unknown as { summary: Record<string, unknown> }
+    expect(JSON.stringify(report.summary)).toMatch(/"balanced":true/)
+  })
+})
