@@ -5,16 +5,17 @@
  * of the step time from 1k to 10k. Targets are printed beside the figures; nothing is asserted.
  *
  * Family: α1 phase path (vertex phases, one pinned, n = V − 1; F_u a weighted graph Laplacian).
- * Lattice paths are not used here: a balanced degree-4 vertex has two pairs of opposite edges,
- * so balanced degree-4 nets are arrangements of straight lines, and in an m×m supercell every
- * extra line can be shifted on its own (a parallel redrawing): F_u is singular for m > 1 and the
- * lattice families of these supercells cannot be continued.
+ * A balanced degree-4 vertex has two pairs of opposite edges, so balanced degree-4 nets are
+ * arrangements of straight lines, and in an m×m supercell every extra line can be shifted on its
+ * own (a parallel redrawing): F_u is singular for m > 1 and their lattice families cannot be
+ * continued. The lattice section therefore shears supercells of the degree-6 demo net
+ * "six-wing-lattice", which stay rigid (tests/unit/pattern/rigidity-sparse.test.ts).
  * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k)
  */
 import { performance } from 'node:perf_hooks'
 import { createContinuation } from '../shared/continuation/engine'
 import { findPatternExample } from '../shared/examples'
-import { familyProblem } from '../shared/families/build'
+import { familyProblem, setupFamily } from '../shared/families/build'
 import { compilePattern } from '../shared/pattern/model'
 import { SparseSolver } from '../shared/linalg/solver'
 import { parseFamilySettings } from '../shared/types/family'
@@ -22,6 +23,7 @@ import { supercell } from '../shared/pattern/supercell'
 import type { PatternDocument } from '../shared/types/pattern'
 
 const settings = parseFamilySettings({ path: { kind: 'alpha1' }, to: 1e6 })
+const shearSettings = parseFamilySettings({ path: { kind: 'shear' }, to: 0.4, balanceFirst: false })
 /** Fixed arclength step of the timed steps. */
 const STEP = Number(process.argv.find(a => a.startsWith('--step='))?.slice(7) ?? 2)
 const quick = process.argv.includes('--quick')
@@ -71,17 +73,31 @@ function best(reps: number, f: () => void): number {
   return t
 }
 
-/** Times one factorisation of F_u at the start and the median of `steps` continuation steps. */
-function measure(m: number, method: 'auto' | 'dense', steps: number, chordNewton = false) {
+/** The α1 family of the m×m "square-pair" supercell (phases repeated, seeded weights). */
+function phaseCase(m: number) {
   const doc = twistedSupercell(findPatternExample('square-pair')!.document, m)
   // seeded weights in [0.5, 1.5): without them the α1 branch is linear and Newton has nothing to do
   const rand = mulberry32(20261202)
   for (const e of doc.edges) e.weight = 0.5 + rand()
   const model = compilePattern(doc)
-  const base = familyProblem(doc, settings, model).problem
+  return { model, problem: familyProblem(doc, settings, model).problem, u: model.psi.subarray(1), lambda: model.alpha[0], step: STEP }
+}
+
+/** The shear family of the m×m "six-wing-lattice" supercell (rigid; n = 2V − 2 positions). */
+function shearCase(m: number) {
+  const doc = supercell(findPatternExample('six-wing-lattice')!.document, m, m)
+  const setup = setupFamily(doc, shearSettings)
+  return { model: setup.model, problem: setup.problem, u: setup.start.u, lambda: setup.start.lambda, step: 0.02 }
+}
+
+type Case = ReturnType<typeof phaseCase>
+
+/** Times one factorisation of F_u at the start and the median of `steps` continuation steps. */
+function measure(c: Case, method: 'auto' | 'dense', steps: number, chordNewton = false) {
+  const { model } = c
   // dense: plain LU (a symmetric dense factor would add an eigen-decomposition for the inertia)
-  const problem = method === 'dense' ? { ...base, symmetric: false } : base
-  const start = createContinuation(problem, { u: model.psi.subarray(1), lambda: model.alpha[0] }, { maxPoints: 1 })
+  const problem = method === 'dense' ? { ...c.problem, symmetric: false } : c.problem
+  const start = createContinuation(problem, { u: c.u, lambda: c.lambda }, { maxPoints: 1 })
   if (!start.started) throw new Error(`start refused: ${start.finishReason}`)
   const u0 = Float64Array.from(start.points[0]!.u), l0 = start.points[0]!.lambda
   const J = problem.jacobian(u0, l0)
@@ -89,7 +105,7 @@ function measure(m: number, method: 'auto' | 'dense', steps: number, chordNewton
   solver.factor(J.Fu, problem.symmetric === true) // ordering and symbolic analysis, reused along a run
   const factorMs = best(method === 'dense' ? 1 : 3, () => { if (!solver.factor(J.Fu, problem.symmetric === true).ok) throw new Error('factorisation failed') })
   // fixed step size so every step does comparable work
-  const run = createContinuation(problem, { u: u0, lambda: l0 }, { initialStep: STEP, maxStep: STEP, solver: { method }, chordNewton })
+  const run = createContinuation(problem, { u: u0, lambda: l0 }, { initialStep: c.step, maxStep: c.step, solver: { method }, chordNewton, fastIterations: chordNewton ? 6 : 3 })
   if (!run.started) throw new Error(`start refused: ${run.finishReason}`)
   const times: number[] = []
   inStep.calls = 0; inStep.ms = 0
@@ -110,12 +126,12 @@ console.log(`Wingfold family continuation bench: α1 phase path on m×m supercel
 console.log('step = one accepted pseudo-arclength step (predictor, Newton corrector, tangent, σ_min estimate, test functions, diagnostics), median of 5')
 console.log('factorisation = one numeric LDLᵀ of F_u (ordering and symbolic analysis done once before), best of 3\n')
 console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   factorisations/step  in factorisation   Newton iterations')
-measure(22, 'auto', 5, true) // warm-up (JIT), not printed
+measure(phaseCase(22), 'auto', 5, true) // warm-up (JIT), not printed
 const sparse: ReturnType<typeof measure>[] = []
 for (const chord of [true, false]) {
   console.log(chord ? 'chord Newton (the families default, step.chord = true): F_u reused from the previous point' : 'full Newton (step.chord = false), for comparison:')
   for (const m of [22, 50, 71]) {
-    const r = measure(m, 'auto', 5, chord)
+    const r = measure(phaseCase(m), 'auto', 5, chord)
     if (chord) sparse.push(r)
     const ratio = r.stepMs / r.factorMs
     console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.newton}`)
@@ -128,9 +144,21 @@ console.log(`\ngrowth exponent of the step time (chord, the default), V = ${firs
 console.log('\ndense LU (ml-matrix, F_u treated as unsymmetric: LU, and a transpose LU for the σ_min estimate) in the same step, one run each:')
 console.log('      V       n   dense factor ms   dense step ms   sparse step ms   speed-up  (target ≥ 100 at V = 2k)')
 for (const m of quick ? [22] : [22, 32]) {
-  const d = measure(m, 'dense', 1, true)
-  const s = m === 22 ? first : measure(m, 'auto', 5, true)
+  const d = measure(phaseCase(m), 'dense', 1, true)
+  const s = m === 22 ? first : measure(phaseCase(m), 'auto', 5, true)
   const up = d.stepMs / s.stepMs
   const target = m === 32 ? (up >= 100 ? 'met' : 'MISSED') : '(V = 1k)'
   console.log(`${String(d.V).padStart(7)} ${String(d.n).padStart(7)} ${f(d.factorMs, 17)} ${f(d.stepMs, 15)} ${f(s.stepMs, 16)} ${up.toFixed(0).padStart(10)}  ${target}`)
 }
+
+console.log('\nlattice family: shear of m×m supercells of "six-wing-lattice" (rigid for every m; n = 2V − 2 positions), arclength step 0.02, chord (default)')
+console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   factorisations/step  in factorisation   Newton iterations')
+const shear: ReturnType<typeof measure>[] = []
+for (const m of [32, 71, 100]) {
+  const r = measure(shearCase(m), 'auto', 5, true)
+  shear.push(r)
+  const ratio = r.stepMs / r.factorMs
+  console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.newton}`)
+}
+const shearExp = Math.log(shear[2]!.stepMs / shear[0]!.stepMs) / Math.log(shear[2]!.V / shear[0]!.V)
+console.log(`growth exponent of the shear step time, V = ${shear[0]!.V} → ${shear[2]!.V}: ${shearExp.toFixed(2)}  (target ≤ 1.3: ${shearExp <= 1.3 ? 'met' : 'MISSED'})`)

@@ -5,6 +5,7 @@
 import { parsePatternDocument, type PatternDocument } from '../types/pattern'
 import fermatPair from './fermat-pair.wfp.json'
 import planeBridge from './plane-bridge.wfp.json'
+import sixWingLattice from './six-wing-lattice.wfp.json'
 import squareGrid from './square-grid.wfp.json'
 import squarePair from './square-pair.wfp.json'
 import threeLineWeave from './three-line-weave.wfp.json'
@@ -24,6 +25,7 @@ const raw: [slug: string, description: string, json: unknown][] = [
   ['two-line-knot', 'Three degree-4 towers in the hexagonal torus on two lines: rigid but not orientable.', twoLineKnot],
   ['square-grid', 'Four degree-4 towers in the square torus on four lines: two parallel redrawings, not rigid.', squareGrid],
   ['plane-bridge', 'Two towers in the plane with six open wings: singly periodic, six ends.', planeBridge],
+  ['six-wing-lattice', 'One degree-6 tower in the hexagonal torus: balanced for every lattice, rigid, orientable, genus 3.', sixWingLattice],
   ['fermat-pair', 'A rough two-vertex three-edge drawing whose balanced state is the Fermat point.', fermatPair],
 ]
 
