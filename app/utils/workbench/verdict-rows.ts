@@ -1,0 +1,54 @@
+/**
+ * The verdict panel's rows from an analysis report: a label, yes/no, the deciding number as short
+ * text, the one-sentence explanation when failing, and whether a witness can be shown. Pure.
+ */
+import type { PatternReport, VerdictName } from '#shared/pattern/report'
+
+/** One row of the verdict panel. */
+export interface VerdictRow {
+  name: VerdictName
+  label: string
+  ok: boolean
+  detail: string
+  explanation?: string
+  hasWitness: boolean
+}
+
+const fmt = (x: number | null | undefined, digits = 2) =>
+  x === null || x === undefined || !Number.isFinite(x) ? '—' : Math.abs(x) !== 0 && (Math.abs(x) < 1e-3 || Math.abs(x) >= 1e4) ? x.toExponential(digits) : x.toFixed(digits + 1)
+
+/** Rows in reading order: combinatorics, lattice, geometry, then phases. */
+export function verdictRows(r: PatternReport): VerdictRow[] {
+  const v = r.verdicts
+  const inertia = v.rigidity.inertia
+  const pInertia = v.phaseRigidity.inertia
+  const rows: Array<[VerdictName, string, string]> = [
+    ['connected', 'connected', `${v.connected.components} component${v.connected.components === 1 ? '' : 's'}`],
+    ['degrees', 'degrees fit a gluing', `degrees ${[...new Set(v.degrees.degrees)].sort((a, b) => a - b).join(', ') || '—'}`],
+    ['orientable', 'orientable', v.orientable.ok ? 'half-edges alternate' : 'odd chain'],
+    ['lattice', 'lattice', v.lattice.relativeArea === null ? 'plane' : `area ratio ${fmt(v.lattice.relativeArea)}`],
+    ['faceClosure', 'faces close', `${v.faceClosure.faces} faces, ${v.faceClosure.openFaces} open · sublattice index ${v.faceClosure.latticeIndex ?? '—'}`],
+    ['cyclicOrder', 'cyclic order consistent', `min margin ${fmt(v.cyclicOrder.minMargin)} rad${v.cyclicOrder.explicit ? ' (given order)' : ''}`],
+    ['edgeLengths', 'edge lengths', `shortest ${fmt(v.edgeLengths.relativeMinLength)} of mean`],
+    ['openWings', 'open wings sum to zero', r.summary.space === 'plane' ? `|Σ| ${fmt(v.openWings.norm)}` : 'none in the torus'],
+    ['balance', 'balanced', `max residual ${fmt(v.balance.maxVertexResidual)}`],
+    ['rigidity', 'rigid', `σ_min ${fmt(v.rigidity.sigmaMin)} · inertia ${inertia ? `${inertia.negative}/${inertia.zero}/${inertia.positive}` : '—'} (${v.rigidity.method})`],
+    ['phaseClosure', 'phases close around faces', `max defect ${fmt(v.phaseClosure.maxDefect)}`],
+    ['phaseBalance', 'phases balanced', `residual ${fmt(v.phaseBalance.residualNorm)}`],
+    ['phaseRigidity', 'phase-rigid', `σ_min ${fmt(v.phaseRigidity.sigmaMin)} · inertia ${pInertia ? `${pInertia.negative}/${pInertia.zero}/${pInertia.positive}` : '—'}`],
+  ]
+  return rows.map(([name, label, detail]) => {
+    const verdict = v[name] as { ok: boolean, explanation?: string, witness?: unknown }
+    return {
+      name, label, ok: verdict.ok, detail,
+      ...(verdict.ok ? {} : { explanation: verdict.explanation ?? 'This condition fails.' }),
+      hasWitness: !verdict.ok && (verdict.witness !== undefined || name === 'balance'),
+    }
+  })
+}
+
+/** The topology line: genus of the embedding and predicted genus / ends of the glued surface. */
+export function topologyLine(r: PatternReport): string {
+  const t = r.topology
+  return `V ${t.vertices} · E ${t.closedEdges}${t.openWings ? ` · W ${t.openWings}` : ''} · F ${t.faces} · embedding genus ${t.embeddingGenus} · glued surface: genus ${t.predictedGenus}${r.summary.space === 'plane' ? `, ${t.openEnds} open ends` : ''}`
+}
