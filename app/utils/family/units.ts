@@ -48,3 +48,10 @@ export function diagnosticQuantity(key: string): Quantity {
 export function withUnit(q: Quantity): string {
   return `${q.label} [${q.unit}]`
 }
+
+/** Diagnostics every point of a path kind records (shared/families/README.md). */
+export function expectedDiagnostics(kind: string): string[] {
+  if (kind === 'wing-rotation') return ['totalLength', 'minEdgeRatio', 'compensateAngle']
+  if (['alpha1', 'alpha2', 'alpha-line', 'weight-scale'].includes(kind)) return ['alpha1', 'alpha2', 'minCos']
+  return ['totalLength', 'minEdgeRatio', 'tauRe', 'tauIm', 'area', 'shapeArea']
+}
