@@ -13,7 +13,8 @@ let owner: ApiClient, editor: ApiClient, viewer: ApiClient, admin: ApiClient, st
 let projectId: number, runId: number
 
 beforeAll(async () => {
-  ;[owner, editor, viewer, admin] = await Promise.all(['owner', 'editor', 'viewer', 'admin'].map(k => signInAs(ctx.server.url, k as 'owner')))
+  const url = ctx.server.url
+  ;[owner, editor, viewer, admin] = await Promise.all([signInAs(url, 'owner'), signInAs(url, 'editor'), signInAs(url, 'viewer'), signInAs(url, 'admin')])
   stranger = await signUp(ctx.server.url, 'Stranger', 'stranger@example.org')
   projectId = ((await owner.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>).find(p => p.name === 'Genus-three torus gluings')!.id
   const [version] = await sqlOnServer(ctx.server, 'SELECT gv.id FROM graph_versions gv JOIN graphs g ON g.id = gv.graph_id WHERE g.project_id = ? LIMIT 1', [projectId])
