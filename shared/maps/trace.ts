@@ -34,8 +34,11 @@ export interface TraceWindow { aMin: number; aMax: number; bMin: number; bMax: n
 /** Traces the curve of `problem` (λ = a, last state component = b) through y0 both ways inside the window. */
 export function traceCurve(kind: string, problem: ContinuationProblem, y0: Float64Array, a0: number, w: TraceWindow): TracedCurve {
   const N = problem.n
+  // a start on the window's edge (a crossing on the first or last row) must still see the bound
+  // crossed: widen the window by a hair so the start lies strictly inside
+  const pa = 1e-9 * (1 + w.aMax - w.aMin), pb = 1e-9 * (1 + w.bMax - w.bMin)
   const halves = (['decrease', 'increase'] as const).map(direction => runContinuation(problem, { u: y0, lambda: a0 }, {
-    direction, lambdaMin: w.aMin, lambdaMax: w.aMax, stateBounds: [{ component: N - 1, min: w.bMin, max: w.bMax }],
+    direction, lambdaMin: w.aMin - pa, lambdaMax: w.aMax + pa, stateBounds: [{ component: N - 1, min: w.bMin - pb, max: w.bMax + pb }],
     maxStep: w.maxStep ?? 0.05, initialStep: Math.min(0.01, w.maxStep ?? 0.05), maxPoints: w.maxPoints ?? 2000,
     detectBranchPoints: false, detectRigidityLoss: false, detectFolds: false, closedLoopTolerance: 1e-6,
   }))
@@ -76,7 +79,12 @@ export function planeTwoParameterProblem(m: PatternModel, s: MapSettings): TwoPa
 export function traceMapCurve(doc: PatternDocument, settingsInput: unknown, crossing: MapCrossing, window?: Partial<TraceWindow>): TracedCurve {
   const s = parseMapSettings(settingsInput)
   const m = compilePattern(doc)
-  const w: TraceWindow = { aMin: s.x.min, aMax: s.x.max, bMin: s.y.min, bMax: s.y.max, ...window }
+  // default window: the map's window plus one grid step all round (a crossing on the first or
+  // last row, located at the collapse tolerance, may correct to a point just outside the grid)
+  const hx = s.x.count > 1 ? (s.x.max - s.x.min) / (s.x.count - 1) : 0.1
+  const hy = s.y.count > 1 ? (s.y.max - s.y.min) / (s.y.count - 1) : 0.1
+  const bMin = s.plane === 'tau' ? Math.max(s.y.min - hy, s.y.min / 2) : s.y.min - hy
+  const w: TraceWindow = { aMin: s.x.min - hx, aMax: s.x.max + hx, bMin, bMax: s.y.max + hy, ...window }
   const u = Float64Array.from(crossing.u)
   if (crossing.kind === 'collapse') {
     if (s.plane !== 'tau') throw new Error('maps: collapse curves live in the τ plane')

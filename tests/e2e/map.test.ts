@@ -9,6 +9,8 @@ import type { Page } from 'playwright-core'
 import { useServerAndBrowser } from '../support/fixtures'
 import { screenshot, signInWithForm } from '../support/browser'
 import { findPatternExample } from '../../shared/examples'
+import { signInAs } from '../support/http'
+import { computeBatches, graphIdByName, projectIdByName } from '../server/runs-helpers'
 
 const ctx = useServerAndBrowser()
 const pattern = findPatternExample('square-pair')!
@@ -58,5 +60,54 @@ describe('moduli map in the browser', () => {
     expect(await page.textContent('[data-testid=map-verification]')).toContain('verified')
     await page.locator('[data-testid=map-heatmap] canvas').first().waitFor()
     await screenshot(page, 'map-saved')
+  })
+})
+
+describe('curves and cancel', () => {
+  it('traces the collapse curves of the Fermat pair over its map, draws a saved family, saves them, and keeps partial rows on cancel', { timeout: 300_000 }, async () => {
+    // a saved family of the same pattern (stretch of Im τ), stored through the run API
+    const api = await signInAs(ctx.server.url, 'owner')
+    const fermat = findPatternExample('fermat-pair')!
+    const projectId = await projectIdByName(api, 'Genus-three torus gluings')
+    const settings = { path: { kind: 'stretch' as const }, to: 1.5, stop: { maxPoints: 40 } }
+    const run = await api.json('POST', `/api/projects/${projectId}/runs`, { graphId: await graphIdByName(api, projectId, fermat.title), name: 'stretch up', settings })
+    expect(run.status).toBe(201)
+    for (const b of computeBatches(fermat.document, settings)) expect((await api.json('POST', `/api/runs/${run.body.id}/points`, { points: b.points, specialPoints: b.specialPoints })).status).toBe(200)
+
+    await ctx.browser.context.clearCookies()
+    const page = await ctx.browser.newPage({ width: 1500, height: 1000 })
+    page.on('pageerror', e => console.log('page error:', e.message))
+    await signInWithForm(page, ctx.server.url, 'owner')
+    await page.click('text=Genus-three torus gluings')
+    await page.click('[data-testid=maps-link]')
+    await page.waitForSelector('[data-testid=map-setup]')
+    await page.selectOption('[data-testid=map-graph]', { label: fermat.title })
+    for (const [k, v] of Object.entries({ 'x-min': '-0.9', 'x-max': '1.9', 'x-count': '15', 'y-min': '0.4', 'y-max': '1.6', 'y-count': '7' })) await page.fill(`[data-testid=map-${k}]`, v)
+    await compute(page, 2)
+    // rows end where an angle of the triangle (0, 1, τ) reaches 120° (Fermat–Torricelli): two curves, at 0 and at 1
+    await page.click('[data-testid=map-trace]')
+    await page.waitForSelector('[data-testid=map-curves]', { timeout: 60_000 })
+    expect(await page.textContent('[data-testid=map-curves]')).toBe('2 curves traced')
+    const overlays = await page.textContent('[data-testid=map-overlays]')
+    expect(overlays).toContain('collapse of edge to-origin')
+    expect(overlays).toContain('collapse of edge to-w1')
+    expect(overlays).toContain('family: stretch up')
+    await page.fill('[data-testid=map-name]', 'Fermat pair: collapse curves')
+    await page.click('[data-testid=map-save]')
+    await page.waitForSelector('[data-testid=map-saved]')
+    expect(await page.textContent('[data-testid=map-saved]')).toContain('verified')
+    await screenshot(page, 'map-fermat-curves')
+
+    // cancel: a 61-row map stopped early keeps the rows it finished
+    await page.selectOption('[data-testid=map-graph]', { label: pattern.title })
+    for (const [k, v] of Object.entries({ 'x-min': '-0.5', 'x-max': '0.5', 'x-count': '61', 'y-min': '0.8', 'y-max': '2', 'y-count': '61' })) await page.fill(`[data-testid=map-${k}]`, v)
+    await page.fill('[data-testid=map-workers]', '1')
+    await page.click('[data-testid=map-compute]')
+    await expect.poll(async () => /^\s*([1-9]\d*) \/ 61 rows/.test((await page.textContent('[data-testid=map-progress]')) ?? ''), { timeout: 60_000, interval: 50 }).toBe(true)
+    await page.click('[data-testid=map-cancel]')
+    await page.waitForSelector('[data-testid=map-timing]')
+    const done = Number(/(\d+) of 61 rows/.exec((await page.textContent('[data-testid=map-timing]'))!)![1])
+    expect(done).toBeGreaterThan(0)
+    expect(done).toBeLessThan(61)
   })
 })
