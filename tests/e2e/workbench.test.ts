@@ -56,7 +56,7 @@ describe('pattern workbench', () => {
       await page.mouse.click(x, y)
     }
     expect(await page.locator('[data-testid=vertex]').count()).toBe(2)
-    expect(await page.locator('[data-testid=canvas] use').count()).toBe(8) // the eight faded copies around the cell
+    expect(await page.locator('[data-testid=copies] use').count()).toBe(8) // the eight faded copies around the cell
     await page.keyboard.press('-') // zoom out so the copies below the cell are on screen
 
     // four edges from the first tower to the second and three of its copies (the copy sets the shift)

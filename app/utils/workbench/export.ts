@@ -3,9 +3,13 @@
  * an <img> and a <canvas>), and the document as JSON.
  */
 
-/** A standalone SVG text from the canvas element (namespace and a white background added). */
-export function standaloneSvg(svg: SVGSVGElement): string {
+/**
+ * A standalone SVG text from the canvas element (namespace and a white background added); the
+ * children of `under` (the canvas's back layer) are drawn first.
+ */
+export function standaloneSvg(svg: SVGSVGElement, under?: SVGSVGElement | null): string {
   const copy = svg.cloneNode(true) as SVGSVGElement
+  if (under) for (const child of [...under.childNodes].reverse()) copy.insertBefore(child.cloneNode(true), copy.firstChild)
   copy.setAttribute('xmlns', 'http://www.w3.org/2000/svg')
   copy.setAttribute('width', String(svg.clientWidth))
   copy.setAttribute('height', String(svg.clientHeight))
