@@ -25,7 +25,7 @@ export const useRunsStore = defineStore('runs', () => {
 
   /** Save one batch of a live run (points and special points as the worker delivered them). */
   function saveBatch(runId: number, batch: FamilyBatch) {
-    const body: RunBatchPayload = { points: batch.points as RunBatchPayload['points'], specialPoints: batch.specialPoints as RunBatchPayload['specialPoints'] }
+    const body: RunBatchPayload = { points: batch.points as unknown as RunBatchPayload['points'], specialPoints: batch.specialPoints as unknown as RunBatchPayload['specialPoints'] }
     return $fetch<{ pointCount: number, specialCount: number }>(`/api/runs/${runId}/points`, { method: 'POST', body })
   }
 

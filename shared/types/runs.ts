@@ -175,3 +175,12 @@ export interface StoredRunPoint {
   state: Record<string, unknown> & { u: number[] }
   diagnostics: Record<string, number>
 }
+
+/** GET /api/projects/[id]/runs/source: what a new run starts from. */
+export interface RunSource {
+  graphId: number
+  graphName: string
+  version: number
+  document: import('./pattern').PatternDocument
+  summary: Record<string, unknown> | null
+}

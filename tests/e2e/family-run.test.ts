@@ -50,9 +50,9 @@ describe('families in the browser', () => {
     const planeId = await projectIdByName(owner, 'Open-wing towers in the plane')
     const fermatGraph = await graphIdByName(owner, torusId, fermat.title)
     // a run in the other demo project, computed with the core and saved by its owner
-    const weight = { path: { kind: 'weight-scale', edges: [bridge.document.edges[0]!.id] }, to: 1.5, stop: { maxPoints: 30 } }
+    const weight = { path: { kind: 'weight-scale' as const, edges: [bridge.document.edges[0]!.id] }, to: 1.5, stop: { maxPoints: 30 } }
     const planeRun = (await owner.json('POST', `/api/projects/${planeId}/runs`, { graphId: await graphIdByName(owner, planeId, bridge.title), name: 'bridge weights', settings: weight })).body.id
-    for (const b of computeBatches(bridge.document, weight as never)) await owner.json('POST', `/api/runs/${planeRun}/points`, { points: b.points, specialPoints: b.specialPoints })
+    for (const b of computeBatches(bridge.document, weight)) await owner.json('POST', `/api/runs/${planeRun}/points`, { points: b.points, specialPoints: b.specialPoints })
     await owner.json('POST', `/api/runs/${planeRun}/finish`, { status: 'complete' })
 
     const page = await ctx.browser.newPage()

@@ -20,7 +20,7 @@ const shear = { path: { kind: 'shear' as const }, to: -2, stop: { maxPoints: 60 
 const batches = computeBatches(fermat.document, shear, 3)
 
 beforeAll(async () => {
-  ;[owner, editor, viewer, admin] = await Promise.all(['owner', 'editor', 'viewer', 'admin'].map(k => signInAs(ctx.server.url, k as 'owner')))
+  ;[owner, editor, viewer, admin] = await Promise.all([signInAs(ctx.server.url, 'owner'), signInAs(ctx.server.url, 'editor'), signInAs(ctx.server.url, 'viewer'), signInAs(ctx.server.url, 'admin')])
   torusId = await projectIdByName(owner, 'Genus-three torus gluings')
   planeId = await projectIdByName(owner, 'Open-wing towers in the plane')
   fermatGraph = await graphIdByName(owner, torusId, fermat.title)
@@ -150,7 +150,7 @@ describe('library, exports, import and compare', () => {
   })
 
   it('compares runs from two projects the user can read and leaves out the others', async () => {
-    const weight = { path: { kind: 'weight-scale', edges: [bridge.document.edges[0]!.id] }, to: 1.5, stop: { maxPoints: 20 } }
+    const weight = { path: { kind: 'weight-scale' as const, edges: [bridge.document.edges[0]!.id] }, to: 1.5, stop: { maxPoints: 20 } }
     const planeRun = (await createRun(owner, planeId, bridgeGraph, weight, 'weights')).body.id as number
     const up = await upload(owner, planeRun, computeBatches(bridge.document, weight))
     expect(up.every(r => r.status === 200)).toBe(true)
