@@ -4,6 +4,7 @@
  * verified in the library, restarts from a middle point and overlays the run with one from the
  * other demo project. A second test kills the worker mid-way and checks every saved batch stays.
  */
+import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
 import { useServerAndBrowser } from '../support/fixtures'
 import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
@@ -117,6 +118,17 @@ describe('families in the browser', () => {
     expect(listed).toContain('Open-wing towers in the plane')
     expect(await page.locator('[data-testid=special-points] tbody tr').count()).toBeGreaterThan(1)
     await screenshot(page, 'family-compare')
+
+    // diagram exports for papers: SVG with a white background, our font, axis units and the caution; PNG bytes
+    const [svgDownload] = await Promise.all([page.waitForEvent('download'), page.click('[data-testid=export-svg]')])
+    const svg = readFileSync((await svgDownload.path())!, 'utf8')
+    expect(svg).toContain('Space Grotesk')
+    expect(svg).toMatch(/σ_min\(F_u\) \[1\/length\]/)
+    expect(svg).toMatch(/fill="(#ffffff|#fff|white)"/i)
+    expect(svg).toContain('numerical evidence, not proofs')
+    const [pngDownload] = await Promise.all([page.waitForEvent('download'), page.click('[data-testid=export-png]')])
+    const png = readFileSync((await pngDownload.path())!)
+    expect([...png.subarray(0, 4)]).toEqual([0x89, 0x50, 0x4e, 0x47]) // PNG signature (ISO/IEC 15948)
   })
 
   it('keeps every batch saved before the worker is killed mid-way', async () => {
