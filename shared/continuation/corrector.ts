@@ -4,8 +4,9 @@
  * which is the pseudo-arclength equation of H. B. Keller (1977) when c is the unit tangent at the
  * last point and target = cᵀy₀ + Δs; with c = e_λ it is plain Newton at fixed λ. Each iteration
  * solves one bordered system (bordered.ts). Converged when max|F| ≤ residualTolerance, or (after
- * at least one update) when the last update is ≤ stepTolerance·(1 + max|y|), which is what
- * remains possible when F is large-scaled and its rounding noise exceeds residualTolerance.
+ * at least one update) when the last update is ≤ stepTolerance·(1 + max|y|) and max|F| ≤
+ * STALL_FACTOR·residualTolerance, which is what remains possible when F is large-scaled and its
+ * rounding noise exceeds residualTolerance.
  * With `chord` the first iteration's bordered matrix is kept for all iterations (chord or
  * simplified Newton: J. M. Ortega, W. C. Rheinboldt, Iterative Solution of Nonlinear Equations
  * in Several Variables, 1970, §7.1), trading quadratic convergence for fewer factorisations.
@@ -15,6 +16,9 @@
 import type { ContinuationProblem } from './types'
 import type { BorderedMatrix, BorderedSolver, PointJacobian } from './bordered'
 import { dot, normInf } from './vectors'
+
+/** Largest residual, in units of residualTolerance, that the small-update rule may accept. */
+export const STALL_FACTOR = 100
 
 /** Outcome of {@link correct}. Failure is a result (`converged: false`), not a throw. */
 export interface CorrectorResult {
@@ -56,7 +60,11 @@ export function correct(
     if (!Number.isFinite(res)) return { converged: false, y, iterations: k, residualNorm: res, reason: 'residual is not finite' }
     const constraint = dot(c, y) - target
     const constraintOk = Math.abs(constraint) <= s.stepTolerance * (1 + normInf(y))
-    if (constraintOk && (res <= s.residualTolerance || (k > 0 && lastUpdate <= s.stepTolerance * (1 + normInf(y))))) {
+    // The small-update rule admits rounding noise in a large-scaled F, but never a residual more
+    // than STALL_FACTOR × residualTolerance: near a collapse F_u has entries ~1/length, so a tiny
+    // update can hide a large residual (servers re-check points at that bound).
+    const stalled = k > 0 && lastUpdate <= s.stepTolerance * (1 + normInf(y)) && res <= STALL_FACTOR * s.residualTolerance
+    if (constraintOk && (res <= s.residualTolerance || stalled)) {
       return { converged: true, y, iterations: k, residualNorm: res }
     }
     if (k === s.maxNewtonIterations) return { converged: false, y, iterations: k, residualNorm: res, reason: `Newton did not converge in ${k} iterations (max|F| = ${res.toExponential(2)})` }
