@@ -39,10 +39,24 @@ export function useFormSubmit<T>(schema: ZodType<T>, state: object, action: (dat
   return { errors, serverError, busy, submit }
 }
 
-/** A readable message from a failed `$fetch` (the server's `message`, else a generic one). */
+/**
+ * A readable message from a failed `$fetch` (the server's `message`, else a generic one). A zod
+ * validation failure (h3 puts the issues as a JSON string in `message`) becomes its issue messages.
+ */
 export function apiErrorMessage(error: unknown): string {
-  const e = error as { data?: { message?: string }, statusCode?: number, message?: string }
+  const e = error as { data?: { message?: string, data?: { name?: string, message?: string } }, statusCode?: number, message?: string }
+  const zod = e?.data?.data?.name === 'ZodError' ? zodIssueMessages(e.data.data.message) : ''
+  if (zod) return zod
   if (e?.data?.message) return e.data.message
   if (e?.statusCode === undefined) return 'The server could not be reached. Check your connection and try again.'
   return e.message || 'Something went wrong.'
+}
+
+/** The issue messages of a serialised ZodError (`[{ message, … }, …]`), joined; '' if it is not one. */
+function zodIssueMessages(json: string | undefined): string {
+  try {
+    const issues = JSON.parse(json ?? '') as Array<{ message?: unknown }>
+    return Array.isArray(issues) ? [...new Set(issues.map(i => String(i?.message ?? '')).filter(Boolean))].join(' ') : ''
+  }
+  catch { return '' }
 }
