@@ -86,7 +86,7 @@ export const PatternDocumentSchema = z.strictObject({
   notes: z.string().max(20000).optional(),
   space: z.enum(PATTERN_SPACES).describe('torus: triply periodic construction with a lattice; plane: singly periodic, with open wings'),
   lattice: PatternLatticeSchema.optional().describe('Torus lattice {w1, w2} with det(w1, w2) > 0 (torus only)'),
-  vertices: z.array(PatternVertexSchema).min(1),
+  vertices: z.array(PatternVertexSchema).min(1, 'add at least one tower'),
   edges: z.array(PatternEdgeSchema),
   wings: z.array(PatternWingSchema).optional(),
   rotation: z.record(z.string(), z.array(z.string())).optional()

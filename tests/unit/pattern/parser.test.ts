@@ -31,6 +31,13 @@ describe('parsePatternDocument', () => {
     expect(messages(d)).toEqual(["edges[3].to: no vertex 'q'"])
   })
 
+  it('says in words that a pattern needs a tower (the workbench shows this for an empty drawing)', () => {
+    const d = base()
+    d.vertices = []
+    d.edges = []
+    expect(messages(d)).toEqual(['vertices: add at least one tower'])
+  })
+
   it('reports duplicates, loops without shift, wings in the torus, bad lattices and rotations', () => {
     const d = base() as Record<string, any>
     d.vertices.push({ id: 'a', position: [0.1, 0.1] })
