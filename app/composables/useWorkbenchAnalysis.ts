@@ -4,6 +4,8 @@ import { useWorkbenchStore } from '~/stores/workbench'
 
 /** Quiet time after the last edit before the worker analyses the document (ms). */
 const DEBOUNCE_MS = 120
+/** Quiet time while a drag is in progress: the verdicts wait for the pointer to rest (ms). */
+const GESTURE_QUIET_MS = 400
 
 /**
  * The live analysis of the workbench document: `analyzePattern` runs in the pattern worker
@@ -31,7 +33,7 @@ export function useWorkbenchAnalysis() {
     running.value = true
     const revision = store.revision
     try {
-      const r = await api().inspect(JSON.parse(JSON.stringify(store.doc)))
+      const r = await api().inspect(JSON.parse(JSON.stringify(toRaw(store.doc))))
       if (r.ok) { report.value = r.report; issues.value = []; lastMs.value = r.ms }
       else { report.value = null; issues.value = r.issues }
       error.value = null
@@ -47,10 +49,14 @@ export function useWorkbenchAnalysis() {
 
   function schedule() {
     clearTimeout(timer)
-    timer = setTimeout(run, DEBOUNCE_MS)
+    timer = setTimeout(run, store.gesture ? GESTURE_QUIET_MS : DEBOUNCE_MS)
   }
 
-  onMounted(() => { watch(() => store.revision, schedule, { immediate: true }) })
+  onMounted(() => {
+    watch(() => store.revision, schedule, { immediate: true })
+    // the end of a drag: analyse the final drawing after the usual short pause
+    watch(() => store.gesture, (on) => { if (!on && analysedRevision.value !== store.revision) schedule() })
+  })
   onBeforeUnmount(() => clearTimeout(timer))
 
   const stale = computed(() => analysedRevision.value !== store.revision)

@@ -33,6 +33,8 @@ export const useWorkbenchStore = defineStore('workbench', () => {
   const tool = ref<WorkbenchTool>('select')
   const snap = ref<SnapOptions>({ divisions: 0 })
   const selection = ref<string[]>([])
+  /** True while the pointer drags vertices or lattice handles (the analysis waits for a pause). */
+  const gesture = ref(false)
   const past = ref<string[]>([])
   const future = ref<string[]>([])
   /** Bumped on every change of the document (the analysis watches it, not the deep document). */
@@ -56,7 +58,7 @@ export const useWorkbenchStore = defineStore('workbench', () => {
 
   /** Record the current document for undo; call before a change (a drag calls it once at its start). */
   function checkpoint() {
-    past.value.push(JSON.stringify(doc.value))
+    past.value.push(JSON.stringify(toRaw(doc.value)))
     if (past.value.length > HISTORY_LIMIT) past.value.shift()
     future.value = []
   }
@@ -173,7 +175,7 @@ export const useWorkbenchStore = defineStore('workbench', () => {
   function dropRotation() { if (doc.value.rotation) delete doc.value.rotation }
 
   return {
-    doc, readOnly, tool, snap, selection, revision, dirty, past, future,
+    doc, readOnly, tool, snap, selection, gesture, revision, dirty, past, future,
     load, markSaved, checkpoint, undo, redo, addVertex, addEdge, addWing, deleteSelection,
     moveVertex, setPositions, setLattice, setEdgeWeight, setPhases, rename,
   }
