@@ -14,6 +14,7 @@ import { parseFamilySettings, type FamilySettings } from '#shared/types/family'
 import { parsePatternDocument, type PatternDocument } from '#shared/types/pattern'
 import type { z } from 'zod'
 import type { RunPointSchema, RunSpecialPointSchema } from '#shared/types/runs'
+import { noticeRunVerdict } from '../mail/notices'
 
 /** Largest max|F| a stored point may have (F is dimensionless for drawings; the engine converges to 1e-10). */
 export const RUN_RESIDUAL_TOLERANCE = 1e-8
@@ -84,6 +85,7 @@ export async function loadRunProblem(run: { graphVersionId: number, settings: st
 /** Marks a run rejected with the reason (it stays rejected). */
 export async function rejectRun(runId: number, reason: string): Promise<void> {
   await useDb().update(tables.runs).set({ verification: 'rejected', verificationReason: reason }).where(eq(tables.runs.id, runId))
+  await noticeRunVerdict(runId)
 }
 
 /**
@@ -105,6 +107,7 @@ export async function verifyStoredRun(runId: number): Promise<void> {
   await useDb().update(tables.runs).set(check.ok
     ? { verification: 'verified', verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${check.maxResidual.toExponential(2)})${sampled}.` }
     : { verification: 'rejected', verificationReason: rejectionReason(check) }).where(eq(tables.runs.id, runId))
+  await noticeRunVerdict(runId) // e-mail to the author (never throws; respects the opt-out)
 }
 
 /** Counts of stored regular and special points. */

@@ -9,6 +9,7 @@ import { client, signInAs, type ApiClient } from '../support/http'
 import { findPatternExample } from '../../shared/examples'
 import { RESULT_CAUTION } from '../../shared/types/runs'
 import { computeBatches, graphIdByName, projectIdByName } from './runs-helpers'
+import { waitForMail } from './team-support'
 
 const ctx = useTestServer()
 let owner: ApiClient, editor: ApiClient, viewer: ApiClient, admin: ApiClient
@@ -57,6 +58,9 @@ describe('saving and verifying a run', () => {
     expect(Math.max(...stored.points.map((p: { residual: number }) => p.residual))).toBeLessThan(1e-8)
     const sp = (await viewer.json('GET', `/api/runs/${runId}/special-points`)).body
     expect(sp.map((s: { specialKind: string }) => s.specialKind)).toContain('collapse')
+    // the author hears of the verdict by e-mail (issue 9: notices), through the outbox
+    const notice = await waitForMail(admin, m => m.kind === 'run-verdict' && m.toAddress.includes('editor@lanternbay.example'))
+    expect(notice.subject).toMatch(/verified/i)
   })
 
   it('refuses a batch with one tampered point, names the point and rejects the run for good', async () => {

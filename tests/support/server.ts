@@ -58,6 +58,7 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
   const port = await freePort()
   const url = `http://127.0.0.1:${port}`
   let log = ''
+  const devDirs = { build: join(ROOT, `.nuxt-devtest-${port}`), output: join(ROOT, `.output-devtest-${port}`) }
   const args = dev
     ? [join(ROOT, 'node_modules/nuxt/bin/nuxt.mjs'), 'dev', '--port', String(port), '--host', '127.0.0.1', '--no-fork']
     : [entry]
@@ -73,6 +74,9 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
       NUXT_MIGRATIONS_DIR: join(ROOT, 'server/migrations'),
       NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
       NUXT_PUBLIC_BASE_URL: url,
+      // nuxt dev clears its build and output folders: keep it away from the build under test
+      // (inside the project root, where Vite may serve from; git-ignored `.nuxt-*` / `.output-*`)
+      ...(dev ? { WINGFOLD_BUILD_DIR: devDirs.build, WINGFOLD_OUTPUT_DIR: devDirs.output } : {}),
       ...opts.env,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -88,6 +92,7 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
       if (child.exitCode === null) process.kill(-child.pid!, 'SIGKILL')
     }
     rmSync(dataDir, { recursive: true, force: true })
+    if (dev) for (const d of Object.values(devDirs)) rmSync(d, { recursive: true, force: true })
   }
 
   const deadline = Date.now() + (opts.timeoutMs ?? (dev ? 180_000 : 60_000))
