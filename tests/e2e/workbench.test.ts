@@ -3,6 +3,7 @@
  * with the mouse, sees it unbalanced, balances it, saves and finds the version; a viewer gets it
  * read-only; a 200-tower pattern is dragged while the Long Tasks API watches the main thread.
  */
+import { availableParallelism, loadavg } from 'node:os'
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { useServerAndBrowser } from '../support/fixtures'
@@ -161,9 +162,11 @@ describe('pattern workbench', () => {
     const runs0 = await runsOf(page)
 
     await page.evaluate(() => {
-      const w = window as unknown as { __longTasks: number[] }
+      const w = window as unknown as { __longTasks: Array<[number, number]>, __pointer: Record<string, number> }
       w.__longTasks = []
-      new PerformanceObserver(list => { for (const e of list.getEntries()) w.__longTasks.push(e.duration) }).observe({ type: 'longtask' })
+      w.__pointer = {}
+      new PerformanceObserver(list => { for (const e of list.getEntries()) w.__longTasks.push([e.startTime, e.duration]) }).observe({ type: 'longtask' })
+      for (const t of ['pointerdown', 'pointerup']) window.addEventListener(t, () => { w.__pointer[t] = performance.now() }, true)
     })
     const grab = vertices[37]!.position as [number, number]
     const [x0, y0] = await at(page, grab)
@@ -172,8 +175,14 @@ describe('pattern workbench', () => {
     for (let s = 1; s <= 60; s++) await page.mouse.move(x0 + s * 1.5, y0 + s * 0.8)
     await page.mouse.up()
     await verdictsCurrent(page, runs0 + 1)
-    const tasks = await page.evaluate(() => (window as unknown as { __longTasks: number[] }).__longTasks)
-    console.log(`[workbench] 200 towers, 60 drag moves: ${tasks.length} main-thread long tasks (> 50 ms), max ${tasks.length ? Math.max(...tasks).toFixed(0) : 0} ms; verdict runs ${runs0} → ${await runsOf(page)}`)
+    const { entries, down, up } = await page.evaluate(() => {
+      const w = window as unknown as { __longTasks: Array<[number, number]>, __pointer: Record<string, number> }
+      return { entries: w.__longTasks, down: w.__pointer.pointerdown ?? 0, up: w.__pointer.pointerup ?? Infinity }
+    })
+    const tasks = entries.map(([, d]) => d)
+    // where each long task started: with the press, between press and release (the moves), or after the release
+    const when = entries.map(([t, d]) => `${t + d < down + 1 ? 'before' : t <= down + 1 ? 'press' : t < up ? 'moves' : 'after'} ${d.toFixed(0)}`)
+    console.log(`[workbench] 200 towers, 60 drag moves: ${tasks.length} main-thread long tasks (> 50 ms), max ${tasks.length ? Math.max(...tasks).toFixed(0) : 0} ms [${when.join(', ')}]; verdict runs ${runs0} → ${await runsOf(page)}; load average ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores`)
     // the worker answered for the dragged drawing: the panel is current and has run again
     expect(await runsOf(page)).toBeGreaterThan(runs0)
     expect(await page.getAttribute('[data-testid=verdicts]', 'data-state')).toBe('current')
