@@ -17,6 +17,12 @@ export const MAP_SCALE_MODES = ['area', 'w1'] as const
 export const MAP_QUANTITIES = ['sigmaMin', 'negativeEigenvalues', 'minEdgeRatio', 'lengthPerRootArea', 'minCos'] as const
 export type MapQuantity = (typeof MAP_QUANTITIES)[number]
 
+/** How each quantity is named on screen (colour-by choice, scale caption). */
+export const MAP_QUANTITY_LABELS: Record<MapQuantity, string> = {
+  sigmaMin: 'σ_min (dimensionless)', negativeEigenvalues: 'negative eigenvalues', minEdgeRatio: 'shortest / mean edge',
+  lengthPerRootArea: 'total length / √area', minCos: 'smallest cos φ',
+}
+
 /** Largest number of values on one axis (a 201 × 201 map has 40 401 cells). */
 export const MAP_AXIS_MAX_COUNT = 201
 
