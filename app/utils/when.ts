@@ -2,3 +2,8 @@
 export function formatWhen(iso: string | null, fallback = '—'): string {
   return iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : fallback
 }
+
+/** Day of an ISO string for tables ("2 Dec 2026": no day/month order to guess). */
+export function formatDay(iso: string): string {
+  return new Date(iso).toLocaleDateString('en-GB', { dateStyle: 'medium' })
+}
