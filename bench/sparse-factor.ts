@@ -9,23 +9,8 @@ import { LuDecomposition, Matrix } from 'ml-matrix'
 import * as mathjs from 'mathjs'
 import { lusolve, slu } from 'mathjs'
 import { CscPattern, LdltSymbolic, cscMultiply, ldltFactor, luFactor, nestedDissection, symmetricAdjacency, tripletsToDense } from '../shared/linalg'
-import { TripletBuilder, type Triplets } from '../shared/linalg/triplets'
-
-function grid(m: number): Triplets {
-  const n = m * m
-  const b = new TripletBuilder(n, n, 5 * n)
-  for (let r = 0; r < m; r++) {
-    for (let c = 0; c < m; c++) {
-      const i = r * m + c
-      b.add(i, i, 4)
-      if (c > 0) b.add(i, i - 1, -1)
-      if (c < m - 1) b.add(i, i + 1, -1)
-      if (r > 0) b.add(i, i - m, -1)
-      if (r < m - 1) b.add(i, i + m, -1)
-    }
-  }
-  return b.build()
-}
+// the same 5-point grid Laplacian the factorisation tests use
+import { gridLaplacian as grid } from '../tests/unit/linalg/random'
 
 const ms = (t0: number): number => performance.now() - t0
 const fmt = (x: number): string => x.toFixed(1).padStart(9)
