@@ -48,7 +48,7 @@ export async function exportArchive(c: ApiClient, projectId: number): Promise<{ 
 
 /** Upload an archive for import. */
 export async function importArchive(c: ApiClient, bytes: Uint8Array, type = 'application/zip') {
-  const res = await c.fetch('/api/projects/import', { method: 'POST', headers: { 'content-type': type }, body: bytes })
+  const res = await c.fetch('/api/projects/import', { method: 'POST', headers: { 'content-type': type }, body: new Uint8Array(bytes) })
   const text = await res.text()
   return { status: res.status, body: text ? JSON.parse(text) : null }
 }

@@ -6,6 +6,8 @@
  * entry, a newer schema) are refused by name with no row written. No secret leaves the server.
  */
 import { createHash } from 'node:crypto'
+import { join } from 'node:path'
+import { createClient } from '@libsql/client'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { deflateSync, zipSync } from 'fflate'
 import { useTestServer } from '../support/fixtures'
@@ -13,6 +15,7 @@ import { DEMO_ACCOUNTS, signInAs, signUp, type ApiClient } from '../support/http
 import { startServer, type TestServer } from '../support/server'
 import { archiveTexts, exportArchive, fillProject, importArchive, rezip, rowCounts } from './archive-support'
 import { projectIdByName } from './runs-helpers'
+import { ARCHIVE_DENIED_TABLES, ARCHIVE_TABLES, isDeniedColumn } from '../../server/utils/archive-tables'
 
 const ctx = useTestServer()
 let fresh: TestServer
@@ -85,6 +88,26 @@ describe('project archive export', () => {
     expect(all).not.toMatch(/\$scrypt|password|token_hash|email|session/i)
     const runRow = JSON.parse(texts['tables/runs.ndjson']!.split('\n')[0]!)
     expect(Object.keys(runRow)).toContain('verification') // columns travel generically (SELECT *)
+  })
+
+  it('has an explicit deny list: secret tables are never in the table list, secret columns never leave', () => {
+    for (const t of ARCHIVE_TABLES) expect(ARCHIVE_DENIED_TABLES).not.toContain(t.name)
+    for (const t of ['users', 'api_tokens', 'password_resets', 'mail_messages', 'invitations', 'sessions']) expect(ARCHIVE_DENIED_TABLES).toContain(t)
+    for (const c of ['password_hash', 'token_hash', 'email', 'session_id', 'client_secret', 'to_address_mail', 'refresh_token']) expect(isDeniedColumn(c), c).toBe(true)
+    for (const c of ['verification', 'verification_reason', 'document', 'state', 'special_kind', 'analysis_summary']) expect(isDeniedColumn(c), c).toBe(false)
+  })
+
+  it('exports a column added later generically, and drops one that holds mail', async () => {
+    const db = createClient({ url: `file:${join(ctx.server.dataDir, 'wingfold.db')}` })
+    try {
+      await db.execute('ALTER TABLE runs ADD COLUMN reviewer_note TEXT')
+      await db.execute('ALTER TABLE graphs ADD COLUMN contact_email TEXT')
+      await db.execute({ sql: 'UPDATE runs SET reviewer_note = ? WHERE project_id = ?', args: ['looked at twice', torusId] })
+      await db.execute({ sql: 'UPDATE graphs SET contact_email = ? WHERE project_id = ?', args: ['secret.person@lanternbay.example', torusId] })
+    } finally { db.close() }
+    const again = archiveTexts((await exportArchive(owner, torusId)).bytes)
+    expect(JSON.parse(again['tables/runs.ndjson']!.split('\n')[0]!).reviewer_note).toBe('looked at twice')
+    expect(Object.values(again).join('\n')).not.toContain('secret.person')
   })
 
   it('is for owners only: an editor gets 403, a stranger 404', async () => {
@@ -177,7 +200,7 @@ describe('project archive import', () => {
   it('refuses an upload that is not a zip, and a signed-out caller', async () => {
     await refused(new TextEncoder().encode('{"not":"a zip"}'), 422, 'archive_empty')
     expect((await importArchive(importer, archive, 'application/json')).status).toBe(415)
-    const res = await fetch(`${fresh.url}/api/projects/import`, { method: 'POST', headers: { 'content-type': 'application/zip' }, body: archive })
+    const res = await fetch(`${fresh.url}/api/projects/import`, { method: 'POST', headers: { 'content-type': 'application/zip' }, body: new Uint8Array(archive) })
     expect(res.status).toBe(401)
   })
 })
