@@ -4,7 +4,8 @@
  * row behind. Rows are inserted table by table in {@link ARCHIVE_TABLES} order into the columns
  * both the archive and this server's table have (`PRAGMA table_info`); ids are renumbered through
  * the table list's `refs`; user references become null (no account is created: the archive's
- * members come back to the importer as people to invite).
+ * members come back to the importer as people to invite). The statements run back to back on the
+ * transaction's own connection with no other I/O in between, so no other request interleaves.
  */
 import type { InValue, Transaction } from '@libsql/client'
 import type { ArchiveImportResult } from '#shared/types/archive'
@@ -99,6 +100,12 @@ export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: 
       runs: tally(v.runs.values()), maps: tally(v.maps.values()),
       members: a.people.filter(p => p.role).map(p => ({ name: p.name, role: p.role! })),
     }
+  } catch (e) {
+    // a row the checks let through but the schema refuses (a duplicate, a broken constraint): nothing was committed
+    if (/SQLITE_CONSTRAINT/.test(String((e as { code?: string }).code ?? (e as Error).message))) {
+      throw archiveRefusal(422, 'archive_conflict', `The archive's rows conflict with each other, so nothing was imported: ${(e as Error).message}`, [(e as Error).message])
+    }
+    throw e
   } finally {
     tx.close()
   }

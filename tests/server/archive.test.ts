@@ -18,7 +18,7 @@ import { projectIdByName } from './runs-helpers'
 import { ARCHIVE_DENIED_TABLES, ARCHIVE_TABLES, isDeniedColumn } from '../../server/utils/archive-tables'
 
 const ctx = useTestServer()
-let fresh: TestServer
+let fresh: TestServer, strict: TestServer
 let owner: ApiClient, importer: ApiClient
 let torusId: number
 let archive: Uint8Array
@@ -35,7 +35,7 @@ beforeAll(async () => {
   archive = r.bytes
   texts = archiveTexts(archive)
 })
-afterAll(async () => { await fresh?.stop() })
+afterAll(async () => { await Promise.all([fresh?.stop(), strict?.stop()]) })
 
 /** Everything the API shows of a project, without ids, times of the server or authorship. */
 async function projectContent(c: ApiClient, projectId: number) {
@@ -190,6 +190,20 @@ describe('project archive import', () => {
     expect(body.message).toContain('../outside.json')
   })
 
+  it('rolls the whole import back when a row breaks a constraint while writing', async () => {
+    const lines = texts['tables/run_points.ndjson']!.trim().split('\n')
+    const twin = { ...JSON.parse(lines[2]!), id: 999_999 } // a second row with the same (run, index)
+    const runs = texts['tables/runs.ndjson']!.trim().split('\n').map(l => JSON.parse(l))
+    runs[0].point_count += 1 // so the counts agree and the duplicate reaches the insert
+    const m = JSON.parse(texts['manifest.json']!)
+    m.counts.run_points += 1
+    const body = await refused(rezip({
+      ...texts, 'manifest.json': JSON.stringify(m), 'tables/runs.ndjson': `${runs.map(r => JSON.stringify(r)).join('\n')}\n`,
+      'tables/run_points.ndjson': `${[...lines, JSON.stringify(twin)].join('\n')}\n`,
+    }), 422, 'archive_conflict')
+    expect(body.message).toMatch(/UNIQUE constraint failed: run_points\.run_id, run_points\.index/)
+  })
+
   it('refuses an archive of a newer schema with a clear message', async () => {
     const m = JSON.parse(texts['manifest.json']!)
     m.schema = { version: m.schema.version + 1, tag: '9999_from_the_future' }
@@ -202,5 +216,48 @@ describe('project archive import', () => {
     expect((await importArchive(importer, archive, 'application/json')).status).toBe(415)
     const res = await fetch(`${fresh.url}/api/projects/import`, { method: 'POST', headers: { 'content-type': 'application/zip' }, body: new Uint8Array(archive) })
     expect(res.status).toBe(401)
+  })
+})
+
+describe('upload limits', () => {
+  // small limits on a third server: 200 kB upload, 12 entries, 512 KiB inflated (ratio limit as default)
+  const MB = 1024 * 1024
+  let user: ApiClient
+  beforeAll(async () => {
+    strict = await startServer({ env: { NUXT_ARCHIVE_IMPORT_MAX_MB: String(200_000 / MB), NUXT_ARCHIVE_IMPORT_MAX_ENTRIES: '12', NUXT_ARCHIVE_IMPORT_MAX_INFLATED_MB: '0.5' } })
+    user = await signUp(strict.url, 'Marit Elsholm', 'marit@elsewhere.example')
+  })
+  /** Seeded bytes (mulberry32, common practice), each one of `alphabet`. */
+  function noise(n: number, alphabet: string, seed = 7): Uint8Array {
+    let a = seed >>> 0
+    const out = new Uint8Array(n)
+    for (let i = 0; i < n; i++) {
+      a = (a + 0x6D2B79F5) >>> 0
+      let t = Math.imul(a ^ (a >>> 15), 1 | a)
+      t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
+      out[i] = alphabet.charCodeAt((((t ^ (t >>> 14)) >>> 0) % alphabet.length))
+    }
+    return out
+  }
+  async function limited(bytes: Uint8Array, code: string) {
+    const before = await rowCounts(strict)
+    const r = await importArchive(user, bytes)
+    expect(r.status, JSON.stringify(r.body)).toBe(413)
+    expect(r.body.data.code).toBe(code)
+    expect(await rowCounts(strict)).toEqual(before)
+  }
+  it('refuses an upload above the size limit', async () => {
+    const zip = zipSync({ 'tables/graphs.ndjson': noise(300_000, 'abcdefghijklmnopqrstuvwxyz0123456789') }, { level: 0 })
+    expect(zip.length).toBeGreaterThan(200_000)
+    await limited(zip, 'archive_too_large')
+  })
+  it('refuses more entries than allowed', async () => {
+    await limited(zipSync(Object.fromEntries(Array.from({ length: 13 }, (_, k) => [`extra-${k}.json`, new TextEncoder().encode('{}')]))), 'archive_too_many_entries')
+  })
+  it('refuses an archive that inflates past the total limit at an ordinary ratio', async () => {
+    const zip = zipSync({ 'tables/run_points.ndjson': noise(700_000, 'ab') }, { level: 9 })
+    expect(zip.length).toBeLessThan(200_000)
+    expect(700_000 / zip.length).toBeLessThan(100) // below the zip-bomb ratio: the total limit is what refuses it
+    await limited(zip, 'archive_too_large_inflated')
   })
 })
