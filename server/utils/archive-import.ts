@@ -56,6 +56,7 @@ export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: 
           }
         }
         if (t.name === 'runs' && v.runs.has(row.id as number)) { const r = v.runs.get(row.id as number)!; out.verification = r.verification; out.verification_reason = r.reason }
+        if (t.name === 'runs' && out.status === 'running') out.status = 'cancelled' // exported mid-computation: nobody computes it here
         if (t.name === 'maps' && v.maps.has(row.id as number)) { const m = v.maps.get(row.id as number)!; out.verification = m.verification; out.verification_reason = m.reason }
         if (t.name === 'run_points' && v.residuals.has(row.id as number)) out.residual = v.residuals.get(row.id as number)
         return out

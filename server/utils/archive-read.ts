@@ -60,12 +60,15 @@ export async function readArchiveStream(source: AsyncIterable<Uint8Array>, limit
     file.start()
   }
   try {
+    // After a refusal the rest of the body is still read (and dropped) up to the upload limit:
+    // leaving a `for await` early destroys the request, and the client would see a reset instead of the answer.
     for await (const chunk of source) {
       read += chunk.length
-      if (read > limits.maxUploadBytes) throw archiveRefusal(413, 'archive_too_large', `The upload is larger than ${limits.maxUploadBytes} bytes (runtime config archiveImportMaxMb).`)
-      unzip.push(chunk)
-      if (failure) throw failure
+      if (read > limits.maxUploadBytes) throw failure ?? archiveRefusal(413, 'archive_too_large', `The upload is larger than ${limits.maxUploadBytes} bytes (runtime config archiveImport.maxMb).`)
+      if (failure) continue
+      try { unzip.push(chunk) } catch (e) { fail(archiveRefusal(422, 'archive_corrupt', `The upload is not a readable zip archive: ${(e as Error).message}.`)) }
     }
+    if (failure) throw failure
     unzip.push(new Uint8Array(0), true)
   } catch (e) {
     if ((e as { statusCode?: number }).statusCode) throw e

@@ -13,8 +13,8 @@ import { deflateSync, zipSync } from 'fflate'
 import { useTestServer } from '../support/fixtures'
 import { DEMO_ACCOUNTS, signInAs, signUp, type ApiClient } from '../support/http'
 import { startServer, type TestServer } from '../support/server'
-import { archiveTexts, exportArchive, fillProject, importArchive, rezip, rowCounts } from './archive-support'
-import { projectIdByName } from './runs-helpers'
+import { archiveTexts, exportArchive, fermat, fillProject, importArchive, rezip, rowCounts, shear } from './archive-support'
+import { computeBatches, projectIdByName } from './runs-helpers'
 import { ARCHIVE_DENIED_TABLES, ARCHIVE_TABLES, isDeniedColumn } from '../../server/utils/archive-tables'
 
 const ctx = useTestServer()
@@ -209,6 +209,17 @@ describe('project archive import', () => {
     m.schema = { version: m.schema.version + 1, tag: '9999_from_the_future' }
     const body = await refused(rezip({ ...texts, 'manifest.json': JSON.stringify(m) }, false), 409, 'archive_schema_newer')
     expect(body.message).toMatch(/newer Wingfold .*Upgrade this server/)
+  })
+
+  it('imports a run exported while it was still running as cancelled, its points verified', async () => {
+    const graphId = (await owner.json('GET', `/api/projects/${torusId}/runs`)).body[0].graphId
+    const run = await owner.json('POST', `/api/projects/${torusId}/runs`, { graphId, name: 'still running', settings: shear })
+    const [batch] = computeBatches(fermat.document, shear, 5)
+    expect((await owner.json('POST', `/api/runs/${run.body.id}/points`, { points: batch!.points, specialPoints: batch!.specialPoints })).status).toBe(200)
+    const r = await importArchive(importer, (await exportArchive(owner, torusId)).bytes)
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+    const imported = ((await importer.json('GET', `/api/projects/${r.body.project.id}/runs`)).body as Array<{ name: string, status: string, verification: string, pointCount: number }>).find(x => x.name === 'still running')!
+    expect(imported).toMatchObject({ status: 'cancelled', verification: 'verified', pointCount: batch!.points.length })
   })
 
   it('refuses an upload that is not a zip, and a signed-out caller', async () => {
