@@ -31,6 +31,9 @@ export default defineNuxtConfig({
     signInLimit: { perAccount: 5, perAddress: 30, windowMinutes: 15 },
     smtpUrl: '',
     mailFrom: 'Wingfold <no-reply@wingfold.local>',
+    // project archive import limits (docs/archives.md) and scheduled backups (docs/backups.md)
+    archiveImport: { maxMb: 64, maxEntries: 64, maxInflatedMb: 256, maxRatio: 100 },
+    backup: { intervalMinutes: 0, dir: './data/backups', keep: 7 },
     public: {
       appVersion: '0.1.0',
       baseUrl: 'http://localhost:3000',
