@@ -11,7 +11,6 @@ import { mkdtemp, readFile } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { promisify } from 'node:util'
-import { Matrix, inverse } from 'ml-matrix'
 import { describe, expect, it } from 'vitest'
 import { findPatternExample } from '../../../shared/examples'
 import type { SurfaceExportMeta } from '../../../shared/surface/export-meta'
@@ -19,35 +18,9 @@ import { readStl } from '../../../shared/surface/export-stl'
 import { parseSurfaceSettings } from '../../../shared/surface/options'
 import { buildSchematic } from '../../../shared/surface/schematic'
 import { exportSurface } from '../../../shared/surface/surface-job'
-import type { Periods } from '../../../shared/surface/mesh'
+import { soupGenus } from '../../support/surface-genus'
 
 const root = resolve(__dirname, '../../..')
-
-/** Genus of the quotient of a triangle soup by the lattice of `periods`, from the soup alone. */
-function soupGenus(tri: Float32Array, periods: Periods): number {
-  const B = inverse(new Matrix(periods).transpose())
-  const vertices = new Map<string, number>(), edges = new Set<string>()
-  const F = tri.length / 9
-  const corner = (t: number, i: number): [string, number[]] => {
-    const x = [tri[9 * t + 3 * i]!, tri[9 * t + 3 * i + 1]!, tri[9 * t + 3 * i + 2]!]
-    const f = B.mmul(Matrix.columnVector(x)).to1DArray()
-    const k = f.map(c => Math.floor(c + 1e-6))
-    const key = f.map((c, d) => Math.round((c - k[d]!) * 1e4) % 1e4).join(',')
-    if (!vertices.has(key)) vertices.set(key, vertices.size)
-    return [key, k]
-  }
-  for (let t = 0; t < F; t++) {
-    const cs = [0, 1, 2].map(i => corner(t, i))
-    for (let i = 0; i < 3; i++) {
-      const [a, ka] = cs[i]!, [b, kb] = cs[(i + 1) % 3]!
-      const rel = kb.map((x, d) => x - ka[d]!)
-      const neg = rel.map(x => -x)
-      edges.add(a < b ? `${a}|${b}|${rel}` : a > b ? `${b}|${a}|${neg}` : `${a}|${a}|${[rel, neg].map(String).sort()[0]}`)
-    }
-  }
-  const chi = vertices.size - edges.size + F
-  return (2 - chi) / 2
-}
 
 const meta = (copies: [number, number, number]): SurfaceExportMeta => ({
   pattern: 'Square pair', version: 7, mesh: 'schematic', settings: parseSurfaceSettings({ rows: 12, radial: 3 }),
