@@ -52,7 +52,7 @@ export interface RelaxResult {
   reason?: string
 }
 
-/** Runs the relaxation step by step on `mesh` (positions change in place); yields after every step. */
+/** Runs the relaxation step by step on `mesh` (positions change in place); yields every step, the last one included. */
 export function* relaxSteps(mesh: PeriodicMesh, input: RelaxSettingsInput = {}): Generator<RelaxProgress, RelaxResult, void> {
   const o = parseRelaxSettings(input)
   const V = mesh.positions.length / 3, F = mesh.triangles.length / 3
@@ -84,10 +84,10 @@ export function* relaxSteps(mesh: PeriodicMesh, input: RelaxSettingsInput = {}):
     const step: RelaxProgress = { iteration: it, area: a, change: Math.abs(area - a) / a, maxMove: out, meanH: H.mean, maxH: H.max }
     history.push(step)
     area = a
+    yield step
     if (out < o.tolerance * h || H.max < o.curvatureTolerance) return finish(true, it)
     if (H.mean < best.meanH) best = { step: it, meanH: H.mean, maxH: H.max, area: a, positions: mesh.positions.slice() }
     else if (it - best.step >= o.patience) return finish(false, it, `mean |H| smallest at step ${best.step}, not lower in the ${o.patience} steps after`)
-    yield step
   }
   return finish(false, o.maxIterations, `still moving after ${o.maxIterations} steps`)
 }

@@ -96,3 +96,12 @@ describe('wingfold surface (CLI)', () => {
     expect(e.stderr).toMatch(/3 wings; a saddle tower needs an even number/)
   })
 })
+
+describe('genus read back from an STL of several cells', () => {
+  it('copies fold onto one cell: 2 × 2 × 1 cells of the square pair still give genus 3', () => {
+    const s = buildSchematic(findPatternExample('square-pair')!.document, { rows: 12, radial: 3 })
+    const stl = readStl(exportSurface(s.mesh, 'stl', { ...meta([2, 2, 1]), unitScale: 1 }) as Uint8Array)
+    expect(stl.triangles.length / 9).toBe(4 * s.topology.faces)
+    expect(soupGenus(stl.triangles, s.mesh.periods)).toBe(3)
+  })
+})
