@@ -124,7 +124,10 @@ describe('surface view', () => {
     const during = tasks.filter(([t]) => t >= t0 && t < ended).map(([, d]) => d)
     const after = tasks.filter(([t]) => t >= ended).map(([, d]) => d)
     console.log(`[surface] relaxation ${(ended - t0).toFixed(0)} ms; main-thread tasks over 50 ms while relaxing: ${during.length} [${during.map(d => d.toFixed(0)).join(', ')}]; drawing the result: ${after.length} [${after.map(d => d.toFixed(0)).join(', ')}]; load average ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores`)
-    expect(during).toEqual([])
+    // The aim is no task over 50 ms; the bound is generous because 2 cores are shared by many jobs
+    // (seen: none in two runs, one of 110 ms at load average 18). Relaxing on the main thread
+    // would be one task as long as the relaxation itself (700–1300 ms here).
+    expect(Math.max(0, ...during)).toBeLessThan(250)
     expect(await page.textContent('[data-testid=surface-kind-note]')).toContain('discrete minimal surface')
     expect(await page.textContent('[data-testid=surface-genus]')).toContain('= E − V + 1 = 3')
     await screenshot(page, 'surface-relaxed')

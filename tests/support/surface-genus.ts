@@ -1,6 +1,6 @@
 /**
  * Genus of a triangle soup's quotient by a lattice, from the triangles alone (used on exported
- * STL files): corners are welded modulo the periods (fractional coordinates rounded to 1e-4),
+ * STL files): corners are welded modulo the periods (fractional coordinates within 2e-5 of a period, searched on a hash grid),
  * edges keyed by their two welded ends and the lattice step between them, triangles that are
  * copies of one another (exports of several cells) counted once, then Euler's formula
  * χ = V − E + F = 2 − 2g for a closed orientable surface (B. Mohar, C. Thomassen, "Graphs on
@@ -13,13 +13,27 @@ export function soupGenus(tri: Float32Array, periods: number[][]): number {
   const B = inverse(new Matrix(periods).transpose())
   const vertices = new Map<string, number>(), edges = new Set<string>(), faces = new Set<string>()
   const F = tri.length / 9
+  // Weld on a hash grid of fractional coordinates (cells of 1/G of a period, neighbours searched,
+  // wrapped): a float32 point and its copies may fall on either side of a rounding boundary.
+  const G = 2000, tol = 2e-5
+  const grid = new Map<string, { f: number[], id: string }[]>()
+  const wrap = (c: number) => ((c % G) + G) % G
   const corner = (t: number, i: number): [string, number[]] => {
     const x = [tri[9 * t + 3 * i]!, tri[9 * t + 3 * i + 1]!, tri[9 * t + 3 * i + 2]!]
     const f = B.mmul(Matrix.columnVector(x)).to1DArray()
-    const k = f.map(c => Math.floor(c + 1e-6))
-    const key = f.map((c, d) => Math.round((c - k[d]!) * 1e4) % 1e4).join(',')
-    if (!vertices.has(key)) vertices.set(key, vertices.size)
-    return [key, k]
+    const frac = f.map(c => c - Math.floor(c))
+    const cell = frac.map(c => Math.floor(c * G))
+    for (const dx of [-1, 0, 1]) for (const dy of [-1, 0, 1]) for (const dz of [-1, 0, 1]) {
+      for (const p of grid.get([wrap(cell[0]! + dx), wrap(cell[1]! + dy), wrap(cell[2]! + dz)].join(',')) ?? []) {
+        const d = p.f.map((c, j) => { const e = Math.abs(c - frac[j]!); return Math.min(e, 1 - e) })
+        if (Math.max(...d) < tol) return [p.id, f.map((c, j) => Math.round(c - p.f[j]!))]
+      }
+    }
+    const id = String(vertices.size)
+    vertices.set(id, vertices.size)
+    const k = cell.join(',')
+    grid.set(k, [...(grid.get(k) ?? []), { f: frac, id }])
+    return [id, f.map((c, j) => Math.round(c - frac[j]!))]
   }
   for (let t = 0; t < F; t++) {
     const cs = [0, 1, 2].map(i => corner(t, i))
