@@ -32,8 +32,8 @@ export function meanCurvature(m: PeriodicMesh): MeanCurvature {
       const vj = m.triangles[3 * t + j]!, vk = m.triangles[3 * t + k]!, w = cot[3 * t + i]!
       for (let d = 0; d < 3; d++) {
         const diff = points[9 * t + 3 * k + d]! - points[9 * t + 3 * j + d]!
-        lap[3 * vj + d] += w * diff
-        lap[3 * vk + d] -= w * diff
+        lap[3 * vj + d] = lap[3 * vj + d]! + w * diff
+        lap[3 * vk + d] = lap[3 * vk + d]! - w * diff
       }
       bary[m.triangles[3 * t + i]!] += area[t]! / 3
     }

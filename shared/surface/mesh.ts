@@ -38,7 +38,7 @@ export function cornerPoint(m: PeriodicMesh, c: number, out: Float64Array | numb
   const v = m.triangles[c]!
   const k1 = m.shifts[3 * c]!, k2 = m.shifts[3 * c + 1]!, k3 = m.shifts[3 * c + 2]!
   const [P1, P2, P3] = m.periods
-  for (let d = 0; d < 3; d++) out[o + d] = m.positions[3 * v + d]! + k1 * P1[d] + k2 * P2[d] + k3 * P3[d]
+  for (let d = 0; d < 3; d++) out[o + d] = m.positions[3 * v + d]! + k1 * P1[d]! + k2 * P2[d]! + k3 * P3[d]!
 }
 
 /** Grows a mesh: vertices are created once per key, triangles get per-corner shifts. */

@@ -15,12 +15,12 @@ export function vertexNormals(m: PeriodicMesh, points: Float64Array): Float64Arr
     const cx = uy * vz - uz * vy, cy = uz * vx - ux * vz, cz = ux * vy - uy * vx
     for (let i = 0; i < 3; i++) {
       const v = m.triangles[3 * t + i]!
-      n[3 * v] += cx; n[3 * v + 1] += cy; n[3 * v + 2] += cz
+      n[3 * v] = n[3 * v]! + cx; n[3 * v + 1] = n[3 * v + 1]! + cy; n[3 * v + 2] = n[3 * v + 2]! + cz
     }
   }
   for (let v = 0; v < V; v++) {
     const l = Math.hypot(n[3 * v]!, n[3 * v + 1]!, n[3 * v + 2]!)
-    if (l > 0) for (let d = 0; d < 3; d++) n[3 * v + d] /= l
+    if (l > 0) for (let d = 0; d < 3; d++) n[3 * v + d] = n[3 * v + d]! / l
   }
   return n
 }

@@ -62,7 +62,7 @@ export function* relaxSteps(mesh: PeriodicMesh, input: RelaxSettingsInput = {}):
   for (let v = 0; v < V; v++) if (!mesh.fixed[v] && (anyFixed || v > 0)) free[v] = n++
   const solver = new SparseSolver()
   const [P1, P2, P3] = mesh.periods
-  const T = (c: number, d: number): number => mesh.shifts[3 * c]! * P1[d] + mesh.shifts[3 * c + 1]! * P2[d] + mesh.shifts[3 * c + 2]! * P3[d]
+  const T = (c: number, d: number): number => mesh.shifts[3 * c]! * P1[d]! + mesh.shifts[3 * c + 1]! * P2[d]! + mesh.shifts[3 * c + 2]! * P3[d]!
   let area = cotanData(mesh).area.reduce((s, a) => s + a, 0)
   const h = meanEdgeLength(mesh)
   const initialArea = area
@@ -111,7 +111,10 @@ function fullStep(mesh: PeriodicMesh, cot: Float64Array, free: Int32Array, n: nu
         if (fa < 0) continue
         tb.add(fa, fa, w)
         if (fb >= 0) tb.add(fa, fb, -w)
-        for (let d = 0; d < 3; d++) rhs[d]![fa] += w * (T(cb, d) - T(ca, d)) + (fb < 0 ? w * mesh.positions[3 * b + d]! : 0)
+        for (let d = 0; d < 3; d++) {
+          const r = rhs[d]!
+          r[fa] = r[fa]! + w * (T(cb, d) - T(ca, d)) + (fb < 0 ? w * mesh.positions[3 * b + d]! : 0)
+        }
       }
     }
   }
@@ -158,8 +161,8 @@ function normalStep(mesh: PeriodicMesh, data: CotanData, free: Int32Array, n: nu
         const e = points[9 * t + 3 * j + d]! - points[9 * t + 3 * k + d]!
         dj += nrm[3 * vj + d]! * e; dk -= nrm[3 * vk + d]! * e
       }
-      if (fj >= 0) { tb.add(fj, fj, w); rhs[fj] -= w * dj; if (fk >= 0) tb.add(fj, fk, -w * nn) }
-      if (fk >= 0) { tb.add(fk, fk, w); rhs[fk] -= w * dk; if (fj >= 0) tb.add(fk, fj, -w * nn) }
+      if (fj >= 0) { tb.add(fj, fj, w); rhs[fj] = rhs[fj]! - w * dj; if (fk >= 0) tb.add(fj, fk, -w * nn) }
+      if (fk >= 0) { tb.add(fk, fk, w); rhs[fk] = rhs[fk]! - w * dk; if (fj >= 0) tb.add(fk, fj, -w * nn) }
     }
   }
   const out = solver.factor(tb.build(), true)
@@ -170,7 +173,7 @@ function normalStep(mesh: PeriodicMesh, data: CotanData, free: Int32Array, n: nu
     const f = free[v]!
     if (f < 0) continue
     const dv = delta[f]!
-    for (let d = 0; d < 3; d++) mesh.positions[3 * v + d] += dv * nrm[3 * v + d]!
+    for (let d = 0; d < 3; d++) mesh.positions[3 * v + d] = mesh.positions[3 * v + d]! + dv * nrm[3 * v + d]!
     maxMove = Math.max(maxMove, Math.abs(dv))
   }
   return maxMove

@@ -122,7 +122,7 @@ export function buildSchematic(doc: PatternDocument, input: SurfaceSettingsInput
     const far = (r: number): Corner => [b.existing(loopKey[w]!(slot[h + 1]!, mod(r + s, N))), k1, k2, Math.floor((r + s) / N)]
     const place = (c: Corner): [number, number, number] => {
       const p = at(c[0])
-      return [0, 1, 2].map(d => p[d]! + c[1] * periods[0][d] + c[2] * periods[1][d] + c[3] * periods[2][d]) as [number, number, number]
+      return [0, 1, 2].map(d => p[d]! + c[1] * periods[0][d]! + c[2] * periods[1][d]! + c[3] * periods[2][d]!) as [number, number, number]
     }
     const p0 = place(near(0)), q0 = place(far(0))
     const K = Math.max(2, Math.ceil(Math.hypot(q0[0] - p0[0], q0[1] - p0[1]) / spacing))

@@ -32,7 +32,7 @@ export function unrollMesh(m: PeriodicMesh, copies: Copies = [1, 1, 1]): Unrolle
         at = src.length
         key.set(k, at)
         src.push(v)
-        for (let d = 0; d < 3; d++) pos.push(m.positions[3 * v + d]! + k1 * P1[d] + k2 * P2[d] + k3 * P3[d])
+        for (let d = 0; d < 3; d++) pos.push(m.positions[3 * v + d]! + k1 * P1[d]! + k2 * P2[d]! + k3 * P3[d]!)
       }
       idx.push(at)
     }

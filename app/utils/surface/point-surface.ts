@@ -1,16 +1,15 @@
 /**
- * The pattern whose surface the run page shows at a point of a family: the drawing at the point
- * (`documentAtPoint`) plus, on the α1 and α2 phase paths, the phases at the point (λ is the
- * period phase, u the vertex phases with vertex 0 pinned). Other phase paths keep the document's
- * phases. And whether the phases keep the towers' horizontal mirror planes (every
+ * The pattern whose surface the run page shows at a point of a family: `drawn` is the drawing at
+ * the point (`documentAtPoint`); on the α1 and α2 phase paths the phases at the point are added
+ * (λ is the period phase, u the vertex phases with vertex 0 pinned); other phase paths keep the
+ * document's phases. And whether the phases keep the towers' horizontal mirror planes (every
  * φ = ψ(to) − ψ(from) + k·α within 1e-9 of 0 or π). Pure.
  */
 import type { FamilySettings } from '#shared/types/family'
 import type { PatternDocument } from '#shared/types/pattern'
-import { documentAtPoint } from '~/utils/family/point-doc'
 
-export function surfaceDocAtPoint(doc: PatternDocument, settings: FamilySettings, lambda: number, u: readonly number[]): PatternDocument {
-  const out = documentAtPoint(doc, settings, lambda, u)
+export function withPhasesAtPoint(doc: PatternDocument, drawn: PatternDocument, settings: FamilySettings, lambda: number, u: readonly number[]): PatternDocument {
+  const out = structuredClone(drawn)
   const kind = settings.path.kind
   if (kind !== 'alpha1' && kind !== 'alpha2') return out
   const alpha: [number, number] = [...(doc.phases?.alpha ?? [0, 0])]

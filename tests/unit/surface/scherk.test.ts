@@ -49,7 +49,8 @@ function perturb(m: PeriodicMesh, F: Implicit, bump: (x: number, y: number, z: n
     const [, fx, fy, fz] = F(x, y, z)
     const g = Math.hypot(fx, fy, fz)
     const k = amplitude * bump(x, y, z) * (1 + 0.5 * Math.sin(3 * x + 2 * y + z)) + 0.2 * amplitude * h * (2 * rnd() - 1)
-    m.positions[3 * v] += k * fx / g; m.positions[3 * v + 1] += k * fy / g; m.positions[3 * v + 2] += k * fz / g
+    const grad = [fx, fy, fz]
+    for (let d = 0; d < 3; d++) m.positions[3 * v + d] = m.positions[3 * v + d]! + k * grad[d]! / g
   }
 }
 
