@@ -1,6 +1,7 @@
 /**
  * `wingfold surface FILE [--relax] [-o out.stl|out.obj|out.gltf] [--copies 2x2x1] [--rows N]
- * [--unit-scale S --unit mm]`: builds the schematic surface of a pattern (shared/surface), relaxes
+ * [--edge-length L] [--wing-length R] [--unit-scale S --unit mm]` (lengths in surface units, the
+ * vertical period being 2π; R: where the open wings of a plane pattern are cut): builds the schematic surface of a pattern (shared/surface), relaxes
  * it on request, prints size, quotient genus against E − V + 1 and the mean curvature, and writes
  * the mesh. Exit 1 when the quotient genus differs from the prediction.
  */
@@ -19,12 +20,14 @@ export async function run(args: string[]): Promise<number> {
     output: { type: 'string', short: 'o' },
     copies: { type: 'string', default: '1x1x1' },
     rows: { type: 'string', default: '24' },
+    'edge-length': { type: 'string' },
+    'wing-length': { type: 'string' },
     'unit-scale': { type: 'string', default: '1' },
     unit: { type: 'string' },
     json: { type: 'boolean', default: false },
   })
   if ('exitCode' in input) return input.exitCode
-  const v = input.values as { relax: boolean, output?: string, copies: string, rows: string, 'unit-scale': string, unit?: string, json: boolean }
+  const v = input.values as { relax: boolean, output?: string, copies: string, rows: string, 'edge-length'?: string, 'wing-length'?: string, 'unit-scale': string, unit?: string, json: boolean }
   const copies = v.copies.split('x').map(Number)
   const unitScale = Number(v['unit-scale'])
   if (copies.length !== 3 || copies.some(c => !Number.isInteger(c) || c < 1 || c > 20)) { console.error('wingfold surface: --copies must look like 2x2x1 (1..20 each)'); return 2 }
@@ -32,7 +35,12 @@ export async function run(args: string[]): Promise<number> {
   const format = v.output ? v.output.split('.').pop()!.toLowerCase() : undefined
   if (format && !SURFACE_FORMATS.includes(format as SurfaceFormat)) { console.error(`wingfold surface: -o must end in ${SURFACE_FORMATS.map(f => '.' + f).join(', ')}`); return 2 }
   let s
-  try { s = schematicOf(input.doc, { rows: Number(v.rows) }) }
+  const settings = {
+    rows: Number(v.rows),
+    ...(v['edge-length'] ? { edgeLength: Number(v['edge-length']) } : {}),
+    ...(v['wing-length'] ? { wingLength: Number(v['wing-length']) } : {}),
+  }
+  try { s = schematicOf(input.doc, settings) }
   catch (e) {
     if (e instanceof SurfaceInputError || (e as Error).name === 'ZodError') { console.error(`wingfold surface: ${(e as Error).message}`); return 2 }
     throw e

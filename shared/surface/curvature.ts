@@ -35,7 +35,8 @@ export function meanCurvature(m: PeriodicMesh): MeanCurvature {
         lap[3 * vj + d] = lap[3 * vj + d]! + w * diff
         lap[3 * vk + d] = lap[3 * vk + d]! - w * diff
       }
-      bary[m.triangles[3 * t + i]!] += area[t]! / 3
+      const vi = m.triangles[3 * t + i]!
+      bary[vi] = bary[vi]! + area[t]! / 3
     }
   }
   const nrm = vertexNormals(m, points)
