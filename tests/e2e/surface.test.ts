@@ -68,6 +68,15 @@ describe('surface view', () => {
           const d = ex.document
           expect(await page.textContent('[data-testid=surface-genus]'), ex.slug).toContain(`E − V + 1 = ${d.edges.length - d.vertices.length + 1}`)
           expect(await page.textContent('[data-testid=surface-kind-note]')).toContain('It is not the minimal surface')
+          if (d.space === 'plane') {
+            // one open end per wing (Chen 2024, Thm 2), also after cutting the wings shorter
+            const wings = d.wings?.length ?? 0
+            expect(await page.textContent('[data-testid=surface-report]')).toContain(`open ends${wings} (pattern: ${wings})`)
+            const before = await page.textContent('[data-testid=surface-report]')
+            await page.selectOption('[data-testid=surface-wing-length]', String(2 * Math.PI))
+            await page.waitForFunction((b) => document.querySelector('[data-testid=surface-report]')?.textContent !== b, before, { timeout: 30_000 })
+            expect(await page.textContent('[data-testid=surface-report]')).toContain(`open ends${wings} (pattern: ${wings})`)
+          }
         }
         else expect(await page.textContent('[data-testid=surface-error]'), ex.slug).toMatch(/wings; a saddle tower needs an even number/)
         await canvasShot(page, `surface-demo-${ex.slug}`)
