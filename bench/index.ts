@@ -10,7 +10,8 @@
  * own (a parallel redrawing): F_u is singular for m > 1 and their lattice families cannot be
  * continued. The lattice section therefore shears supercells of the degree-6 demo net
  * "six-wing-lattice", which stay rigid (tests/unit/pattern/rigidity-sparse.test.ts).
- * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k)
+ * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k); ends with the surface
+ * section of ./surface.ts (alone: npx tsx bench/surface.ts)
  */
 import { performance } from 'node:perf_hooks'
 import { createContinuation } from '../shared/continuation/engine'
@@ -162,3 +163,4 @@ for (const m of [32, 71, 100]) {
 }
 const shearExp = Math.log(shear[2]!.stepMs / shear[0]!.stepMs) / Math.log(shear[2]!.V / shear[0]!.V)
 console.log(`growth exponent of the shear step time, V = ${shear[0]!.V} → ${shear[2]!.V}: ${shearExp.toFixed(2)}  (target ≤ 1.3: ${shearExp <= 1.3 ? 'met' : 'MISSED'})`)
+await import('./surface')
