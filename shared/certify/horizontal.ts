@@ -36,9 +36,16 @@ export function horizontalSystem(m: PatternModel, lat: Lattice, pin: readonly [n
     const v = m.edgeFrom[e]!, w = m.edgeTo[e]!
     return [0, 1].map(c => add(sub(coord(lo, hi, w, c as 0 | 1), coord(lo, hi, v, c as 0 | 1)), T[e]![c]!)) as [Interval, Interval]
   }
+  let total = 0, count = 0
+  for (let e = 0; e < m.nEdges; e++) {
+    if (m.edgeFrom[e] === m.edgeTo[e]) continue
+    const [ex, ey] = edge(m.positions.subarray(2), m.positions.subarray(2), e)
+    total += Math.hypot(ex.lo, ey.lo); count++
+  }
   return {
     n,
     symmetric: true,
+    jacobianScale: count && total > 0 ? count / total : 1,
     residualEnclosure(x: Float64Array): IntervalVector {
       const lo = new Float64Array(n), hi = new Float64Array(n)
       const addTo = (v: number, c: number, s: number, u: Interval) => {

@@ -202,18 +202,18 @@ function rowSumNorm(A: IntervalTriplets, values: Float64Array): number {
   return r.reduce((m, v) => Math.max(m, v), 0)
 }
 
-/** Proves (or fails to prove) a unique zero of `sys` near x (radii in the max-norm). */
-export function certifyZero(sys: IntervalSystem, x: Float64Array, options?: CertifyOptions): ZeroCertificate {
-  const o = resolveCertifyOptions(options)
+/** The data every radius check shares, or a certificate that ends the work early. */
+function prepare(sys: IntervalSystem, x: Float64Array, o: Required<CertifyOptions>):
+  { done: ZeroCertificate } | { poly: RadiiPolynomial; Y: number; Z0: number; condition: number } {
   const n = sys.n
   if (x.length !== n) throw new Error(`certify: x has length ${x.length}, expected ${n}`)
-  if (n > o.maxSize) return { certified: false, size: n, reason: 'too-large', detail: `${n} unknowns, more than the ${o.maxSize} certified within 10 s on the reference machine` }
-  if (!x.every(Number.isFinite)) return { certified: false, size: n, reason: 'enclosure-too-wide', detail: 'the point has a non-finite coordinate' }
-  if (n === 0) return { certified: true, size: 0, rMin: 0, rMax: Infinity, y: 0, z0: 0, norm: 'max' }
+  if (n > o.maxSize) return { done: { certified: false, size: n, reason: 'too-large', detail: `${n} unknowns, more than the ${o.maxSize} certified within 10 s on the reference machine` } }
+  if (!x.every(Number.isFinite)) return { done: { certified: false, size: n, reason: 'enclosure-too-wide', detail: 'the point has a non-finite coordinate' } }
+  if (n === 0) return { done: { certified: true, size: 0, rMin: 0, rMax: Infinity, y: 0, z0: 0, norm: 'max' } }
   const A0 = sys.jacobianEnclosure(x, x)
   const mid = midpoints(A0)
   const inv = approximateInverse(A0, mid, o.symmetric)
-  if (!inv.ok) return { certified: false, size: n, reason: 'not-rigid', detail: `the Jacobian at the point is singular: ${inv.reason}` }
+  if (!inv.ok) return { done: { certified: false, size: n, reason: 'not-rigid', detail: `the Jacobian at the point is singular: ${inv.reason}` } }
   const c = inv.c
   const z0 = identityDefect(c, A0, mid)
   const f = sys.residualEnclosure(x)
@@ -222,23 +222,32 @@ export function certifyZero(sys: IntervalSystem, x: Float64Array, options?: Cert
   const poly = new RadiiPolynomial(sys, x, c, mid, z0, y)
   let cNorm = 0
   for (let i = 0; i < n; i++) { let s = 0; for (let j = 0; j < n; j++) s += poly.absC[j * n + i]!; cNorm = Math.max(cNorm, s) }
-  const condition = cNorm * rowSumNorm(A0, mid)
+  return { poly, Y, Z0, condition: cNorm * Math.max(rowSumNorm(A0, mid), sys.jacobianScale ?? 0) }
+}
+
+/** Proves (or fails to prove) a unique zero of `sys` near x (radii in the max-norm). */
+export function certifyZero(sys: IntervalSystem, x: Float64Array, options?: CertifyOptions): ZeroCertificate {
+  const o = resolveCertifyOptions(options)
+  const n = sys.n
+  const prep = prepare(sys, x, o)
+  if ('done' in prep) return prep.done
+  const { poly, Y, Z0, condition } = prep
   const fail = (why: string): ZeroCertificate => condition > o.singularCondition
     ? { certified: false, size: n, reason: 'not-rigid', detail: `the Jacobian is singular to working precision (condition ≈ ${condition.toExponential(1)}); ${why}` }
     : { certified: false, size: n, reason: 'enclosure-too-wide', detail: why }
   if (!(Z0 < 1)) return fail(`‖I − C F'(x̃)‖∞ ≤ ${Z0.toExponential(2)} is not below 1`)
   // smallest radius: r = Y / (1 − Z(r)), a few fixed-point steps with 5 % head-room
+  const cap = sys.maxRadius(x)
   let r = succ(1.05 * Y / (1 - Z0)), rMin = NaN
   for (let k = 0; k < 8 && Number.isNaN(rMin); k++) {
-    if (!(r <= sys.maxRadius(x))) break
+    if (!(r <= cap)) break
     const { ok, z } = poly.check(r)
     if (ok) rMin = r
     else if (z < 1) r = Math.max(succ(1.05 * Y / (1 - z)), 2 * r)
     else break
   }
   if (Number.isNaN(rMin)) return fail(`no radius r with Y + Z(r)·r < r (Y ≤ ${Y.toExponential(2)}, Z₀ ≤ ${Z0.toExponential(2)})`)
-  // largest radius: double, then bisect geometrically between the last success and the first failure
-  const cap = sys.maxRadius(x)
+  // largest radius: grow by 4, then bisect geometrically between the last success and the first failure
   let good = rMin, bad = Infinity
   while (bad === Infinity) {
     const next = Math.min(4 * good, cap)
@@ -246,9 +255,23 @@ export function certifyZero(sys: IntervalSystem, x: Float64Array, options?: Cert
     if (poly.check(next).ok) { good = next; if (next === cap) break } else bad = next
   }
   for (let k = 0; k < o.bisectionSteps && bad < Infinity && bad / good > 1.02; k++) {
-    const mid2 = Math.sqrt(good * bad)
-    if (poly.check(mid2).ok) good = mid2
-    else bad = mid2
+    const m = Math.sqrt(good * bad)
+    if (poly.check(m).ok) good = m
+    else bad = m
   }
   return { certified: true, size: n, rMin, rMax: good, y: Y, z0: Z0, norm: 'max' }
+}
+
+/**
+ * Re-proves a claimed certificate: true only when p(r) < 0 is proven here for both claimed radii
+ * (a unique zero within rMin of x, and no other within rMax). The server runs this on what a
+ * client submits, so a claim is never taken on trust and different engines need not agree bit
+ * for bit.
+ */
+export function proveClaim(sys: IntervalSystem, x: Float64Array, rMin: number, rMax: number, options?: CertifyOptions): boolean {
+  if (!(rMin > 0 && rMax >= rMin && Number.isFinite(rMax))) return sys.n === 0 && rMin === 0
+  if (!(rMax <= sys.maxRadius(x))) return false
+  const prep = prepare(sys, x, resolveCertifyOptions(options))
+  if ('done' in prep) return prep.done.certified && sys.n === 0
+  return prep.poly.check(rMin).ok && (rMax === rMin || prep.poly.check(rMax).ok)
 }

@@ -81,6 +81,7 @@ export function phaseSystem(m: PatternModel, data: PhaseSystemData): IntervalSys
       return b.build()
     },
     maxRadius: () => Math.PI,
+    jacobianScale: data.weights.length ? data.weights.reduce((a, k) => a + Math.abs(k), 0) / data.weights.length : 1,
   }
 }
 

@@ -31,6 +31,11 @@ export interface IntervalSystem {
   jacobianEnclosure(lo: Float64Array, hi: Float64Array): IntervalTriplets
   /** Largest radius worth trying (e.g. before an edge could collapse); Infinity when none. */
   maxRadius(x: Float64Array): number
+  /**
+   * Natural size of the Jacobian's entries (1/mean length for balance, the mean weight for
+   * phases): a Jacobian tiny on this scale is singular even when its own condition is modest.
+   */
+  jacobianScale?: number
 }
 
 /** Growable interval triplet builder (typed arrays, no per-entry objects). */
