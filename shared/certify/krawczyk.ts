@@ -55,7 +55,7 @@ export interface CertifyOptions {
 }
 
 export const DEFAULT_CERTIFY_OPTIONS: Required<CertifyOptions> = {
-  maxSize: 1200,
+  maxSize: 1600,
   singularCondition: 1e11,
   bisectionSteps: 12,
   symmetric: false,

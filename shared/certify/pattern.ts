@@ -58,6 +58,7 @@ export function certifyDrawing(m: PatternModel, hasPhases: boolean, options?: Dr
 
 /** One line for people: "certified (radius 2.1e-15; unique within 0.15)" or "not certified: …". */
 export function describeCertificate(c: PartCertificate): string {
+  if (c.certified && c.size === 0) return 'certified (no unknowns: the equations hold identically)'
   if (c.certified) return `certified (radius ${c.rMin.toExponential(1)}; unique within ${c.rMax.toExponential(1)}, max-norm)`
   const why = { 'not-rigid': 'not rigid', 'too-large': 'too large', 'enclosure-too-wide': 'enclosure too wide', 'not-covered': 'not covered' }[c.reason]
   return `not certified: ${why} (${c.detail})`
