@@ -117,6 +117,21 @@ export const runPoints = sqliteTable('run_points', {
   index('run_points_run_special_idx').on(t.runId, t.specialKind),
 ])
 
+/**
+ * Interval certificates of saved run points (shared/certify): a row exists only after the
+ * server re-proved the claimed radii itself — a unique zero within r_min of the stored point,
+ * and no other within r_max (max-norm of the family's unknowns).
+ */
+export const pointCertificates = sqliteTable('point_certificates', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  runId: integer('run_id').notNull().references(() => runs.id, { onDelete: 'cascade' }),
+  pointIndex: integer('point_index').notNull(),
+  rMin: real('r_min').notNull(),
+  rMax: real('r_max').notNull(),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [uniqueIndex('point_certificates_run_point_unique').on(t.runId, t.pointIndex)])
+
 /** Invitations to a project by e-mail (only the token's hash is stored). */
 export const invitations = sqliteTable('invitations', {
   id: integer('id').primaryKey({ autoIncrement: true }),

@@ -1,0 +1,24 @@
+/**
+ * Payloads of the certificate routes: a client (the run page's worker) claims interval
+ * certificates for saved points; the server re-proves every claim before storing it.
+ */
+import { z } from 'zod'
+
+/** Largest number of claims one request may carry (each is re-proven on the server). */
+export const MAX_CERTIFICATE_CLAIMS = 100
+
+/** One claim: a unique zero within rMin of saved point `index`, no other within rMax (max-norm). */
+export const CertificateClaimSchema = z.object({
+  index: z.number().int().min(0),
+  rMin: z.number().finite().positive(),
+  rMax: z.number().finite().positive(),
+}).refine(c => c.rMax >= c.rMin, { message: 'rMax must be at least rMin' })
+
+/** POST /api/runs/[runId]/certificates. */
+export const certificateClaimsSchema = z.object({
+  claims: z.array(CertificateClaimSchema).min(1, 'claim at least one point').max(MAX_CERTIFICATE_CLAIMS),
+})
+export type CertificateClaimsPayload = z.input<typeof certificateClaimsSchema>
+
+/** A stored (server-proven) certificate. */
+export interface StoredCertificate { index: number; rMin: number; rMax: number; provenAt: string }
