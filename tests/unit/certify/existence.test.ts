@@ -24,6 +24,7 @@ import { tripletsToDense } from '../../../shared/pattern/spectrum'
 import { supercell } from '../../../shared/pattern/supercell'
 import { seeded } from '../linalg/random'
 import { reportDeviation, torusDoc, torusModel } from '../pattern/helpers'
+import { isogonicCentre } from '../pattern/triangle-centres'
 
 type P = [number, number]
 
@@ -33,15 +34,6 @@ function fermatModel(w1: P, w2: P, start: P): PatternModel {
   ]))
 }
 
-/** X(13) from its trilinears csc(A + π/3) : csc(B + π/3) : csc(C + π/3) (Kimberling, ETC). */
-function isogonicCentre(A: P, B: P, C: P): P {
-  const d = (p: P, q: P) => Math.hypot(p[0] - q[0], p[1] - q[1])
-  const a = d(B, C), b = d(C, A), c = d(A, B)
-  const angle = (opp: number, s1: number, s2: number) => Math.acos((s1 * s1 + s2 * s2 - opp * opp) / (2 * s1 * s2))
-  const [tA, tB, tC] = [angle(a, b, c), angle(b, c, a), angle(c, a, b)].map(x => 1 / Math.sin(x + Math.PI / 3))
-  const wa = a * tA!, wb = b * tB!, wc = c * tC!, s = wa + wb + wc
-  return [(wa * A[0] + wb * B[0] + wc * C[0]) / s, (wa * A[1] + wb * B[1] + wc * C[1]) / s]
-}
 
 describe('Fermat–Torricelli point (Kimberling X(13)) in the certified box', () => {
   // ω1 = (2, 0), ω2 = (1, 2): X(13) = (1, 1/√3) (derived: the triangle is isosceles about x = 1,
