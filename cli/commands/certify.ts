@@ -8,7 +8,7 @@
  */
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
-import { certifiedChecklist, STATUS_WORDS } from '../../shared/certify/checklist'
+import { certifiedChecklist, provenParts, STATUS_WORDS } from '../../shared/certify/checklist'
 import { certifyFamilyPoints } from '../../shared/certify/family'
 import { certifyDrawing, describeCertificate } from '../../shared/certify/pattern'
 import { hypothesesFromReport } from '../../shared/certify/report-hypotheses'
@@ -40,7 +40,7 @@ export async function run(args: string[]): Promise<number> {
   if ('error' in read) { console.error(read.error); return 2 }
   const m = compilePattern(read.doc)
   const cert = certifyDrawing(m, read.doc.phases !== undefined)
-  const checklist = certifiedChecklist(hypothesesFromReport(analyzePattern(read.doc)), cert)
+  const checklist = certifiedChecklist(hypothesesFromReport(analyzePattern(read.doc)), provenParts(cert))
   const ok = cert.horizontal.certified && (cert.phase === null || cert.phase.certified)
   if (parsed.values.json) {
     console.log(JSON.stringify({ certificate: cert, checklist, norms: NORMS }, null, 2))

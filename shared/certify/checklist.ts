@@ -7,7 +7,7 @@
  * certificate upgrades the ids it proves, combinatorial ids are exact integer computations, the
  * rest stay numerical evidence.
  */
-import type { DrawingCertificate, PartCertificate } from './pattern'
+import type { DrawingCertificate } from './pattern'
 
 /** Strength of one hypothesis verdict. */
 export type HypothesisStatus = 'proven-interval' | 'exact' | 'numerical' | 'fails'
@@ -34,13 +34,20 @@ export const HYPOTHESIS_LABELS: Record<string, string> = {
   P5: 'balanced, wings included', P6: 'rigid', P7: 'all vertices ordinary', P8: 'vertically balanced', P9: 'phase-rigid',
 }
 
+/** Which systems an interval certificate proved. */
+export interface ProvenParts { horizontal: boolean; phase: boolean }
+
+/** The proven parts of a drawing's certificate. */
+export function provenParts(cert: DrawingCertificate | null): ProvenParts {
+  return { horizontal: !!cert?.horizontal.certified, phase: !!cert?.phase?.certified }
+}
+
 /** The checklist: each input hypothesis with the strongest status the evidence allows. */
-export function certifiedChecklist(items: HypothesisInput[], cert: DrawingCertificate | null): ChecklistItem[] {
-  const proven = (c: PartCertificate | null | undefined) => !!c && c.certified
+export function certifiedChecklist(items: HypothesisInput[], proven: ProvenParts): ChecklistItem[] {
   return items.map(({ id, holds, label }) => {
     const base = { id, label: label ?? HYPOTHESIS_LABELS[id] ?? id }
-    if (HORIZONTAL.has(id) && proven(cert?.horizontal)) return { ...base, status: 'proven-interval' as const, note: 'a unique zero within the certified radius; its Jacobian is invertible' }
-    if (PHASE.has(id) && proven(cert?.phase)) return { ...base, status: 'proven-interval' as const, note: 'a unique phase zero within the certified radius; its Jacobian is invertible' }
+    if (HORIZONTAL.has(id) && proven.horizontal) return { ...base, status: 'proven-interval' as const, note: 'a unique zero within the certified radius; its Jacobian is invertible' }
+    if (PHASE.has(id) && proven.phase) return { ...base, status: 'proven-interval' as const, note: 'a unique phase zero within the certified radius; its Jacobian is invertible' }
     if (!holds) return { ...base, status: 'fails' as const }
     if (EXACT.has(id)) return { ...base, status: 'exact' as const }
     return { ...base, status: 'numerical' as const }

@@ -13,6 +13,6 @@ export type { PartCertificate, DrawingCertificate, DrawingCertifyOptions } from 
 export { certifyHorizontal, certifyPhases, certifyDrawing, describeCertificate } from './pattern'
 export type { FamilyPointInput, PointCertificate, FamilyCertifyOptions, CertificateClaim, ClaimVerification } from './family'
 export { certifyFamilyPoints, verifyCertificateClaims } from './family'
-export type { HypothesisStatus, HypothesisInput, ChecklistItem } from './checklist'
-export { certifiedChecklist, HYPOTHESIS_LABELS, STATUS_WORDS } from './checklist'
+export type { HypothesisStatus, HypothesisInput, ChecklistItem, ProvenParts } from './checklist'
+export { certifiedChecklist, provenParts, HYPOTHESIS_LABELS, STATUS_WORDS } from './checklist'
 export { hypothesesFromReport } from './report-hypotheses'
