@@ -14,13 +14,25 @@ import { add, div, hypot, interval, mul, neg, point, sqr, sub, unitVector, type 
 import { pred, succ } from './round'
 import { IntervalTripletBuilder, type IntervalSystem, type IntervalTriplets, type IntervalVector } from './system'
 
-/** Enclosure of the lattice translation T(k) = k1 ω1 + k2 ω2 (component c). */
-function translation(k1: number, k2: number, lat: Lattice, c: 0 | 1): Interval {
-  return add(mul(point(k1), point(lat.w1[c])), mul(point(k2), point(lat.w2[c])))
+/** A lattice whose four components are intervals (a lattice path over an interval of λ). */
+export interface LatticeBox { w1: [Interval, Interval]; w2: [Interval, Interval] }
+
+/** The point lattice as a box. */
+export function latticeBox(lat: Lattice): LatticeBox {
+  return { w1: [point(lat.w1[0]), point(lat.w1[1])], w2: [point(lat.w2[0]), point(lat.w2[1])] }
 }
 
-/** The reduced horizontal system of a torus model in lattice `lat`, vertex 0 pinned at `pin`. */
-export function horizontalSystem(m: PatternModel, lat: Lattice, pin: readonly [number, number]): IntervalSystem & { symmetric: true } {
+/** Enclosure of the lattice translation T(k) = k1 ω1 + k2 ω2 (component c). */
+function translation(k1: number, k2: number, lat: LatticeBox, c: 0 | 1): Interval {
+  return add(mul(point(k1), lat.w1[c]), mul(point(k2), lat.w2[c]))
+}
+
+/**
+ * The reduced horizontal system of a torus model in lattice `lat` (a point lattice, or a box:
+ * then the enclosures hold for every lattice in it), vertex 0 pinned at `pin`.
+ */
+export function horizontalSystem(m: PatternModel, lattice: Lattice | LatticeBox, pin: readonly [number, number]): IntervalSystem & { symmetric: true } {
+  const lat = typeof lattice.w1[0] === 'number' ? latticeBox(lattice as Lattice) : lattice as LatticeBox
   if (m.space !== 'torus') throw new Error('certify: the horizontal certificate covers torus patterns')
   const V = m.nVertices, n = 2 * V - 2
   const T: [Interval, Interval][] = []

@@ -52,6 +52,8 @@ export interface CertifyOptions {
   bisectionSteps?: number
   /** Symmetric Jacobian: LDLᵀ instead of LU for C. */
   symmetric?: boolean
+  /** Smallest radius wanted (segments: the ball must reach both end points' boxes). */
+  minRadius?: number
 }
 
 export const DEFAULT_CERTIFY_OPTIONS: Required<CertifyOptions> = {
@@ -59,6 +61,7 @@ export const DEFAULT_CERTIFY_OPTIONS: Required<CertifyOptions> = {
   singularCondition: 1e11,
   bisectionSteps: 12,
   symmetric: false,
+  minRadius: 0,
 }
 
 /** Fills defaults and rejects nonsense. */
@@ -67,6 +70,7 @@ export function resolveCertifyOptions(o: CertifyOptions = {}): Required<CertifyO
   if (!(Number.isInteger(r.maxSize) && r.maxSize >= 0)) throw new Error('certify: maxSize must be an integer ≥ 0')
   if (!(r.singularCondition > 1)) throw new Error('certify: singularCondition must exceed 1')
   if (!(Number.isInteger(r.bisectionSteps) && r.bisectionSteps >= 0)) throw new Error('certify: bisectionSteps must be an integer ≥ 0')
+  if (!(r.minRadius >= 0)) throw new Error('certify: minRadius must be ≥ 0')
   return r
 }
 
@@ -238,7 +242,7 @@ export function certifyZero(sys: IntervalSystem, x: Float64Array, options?: Cert
   if (!(Z0 < 1)) return fail(`‖I − C F'(x̃)‖∞ ≤ ${Z0.toExponential(2)} is not below 1`)
   // smallest radius: r = Y / (1 − Z(r)), a few fixed-point steps with 5 % head-room
   const cap = sys.maxRadius(x)
-  let r = succ(1.05 * Y / (1 - Z0)), rMin = NaN
+  let r = Math.max(o.minRadius, succ(1.05 * Y / (1 - Z0))), rMin = NaN
   for (let k = 0; k < 8 && Number.isNaN(rMin); k++) {
     if (!(r <= cap)) break
     const { ok, z } = poly.check(r)

@@ -39,6 +39,9 @@ export interface PhaseSystemData {
   weights: Float64Array
   /** Full ψ (V) supplying the pinned values. */
   psi: Float64Array
+  /** Enclosures replacing α and K (a phase path over an interval of λ). */
+  alphaBox?: [Interval, Interval]
+  weightBox?: Interval[]
 }
 
 /** The phase system as an interval system; its unknowns are ψ of the free vertices in order. */
@@ -48,13 +51,15 @@ export function phaseSystem(m: PatternModel, data: PhaseSystemData): IntervalSys
   let n = 0
   for (let v = 0; v < m.nVertices; v++) if (!pinned.has(v)) unknownOf[v] = n++
   if (data.rows.length !== n) throw new Error(`certify: ${data.rows.length} phase rows for ${n} unknowns`)
+  const alpha = data.alphaBox ?? [point(data.alpha[0]), point(data.alpha[1])]
+  const K = data.weightBox ?? Array.from(data.weights, k => point(k))
   const kAlpha: Interval[] = []
-  for (let e = 0; e < m.nEdges; e++) kAlpha.push(add(mul(point(m.shift[4 * e]!), point(data.alpha[0])), mul(point(m.shift[4 * e + 1]!), point(data.alpha[1]))))
+  for (let e = 0; e < m.nEdges; e++) kAlpha.push(add(mul(point(m.shift[4 * e]!), alpha[0]), mul(point(m.shift[4 * e + 1]!), alpha[1])))
   const psiOf = (lo: Float64Array, hi: Float64Array, v: number): Interval =>
     unknownOf[v]! < 0 ? point(data.psi[v]!) : interval(lo[unknownOf[v]!]!, hi[unknownOf[v]!]!)
   const phi = (lo: Float64Array, hi: Float64Array, e: number): Interval =>
     add(sub(psiOf(lo, hi, m.edgeTo[e]!), psiOf(lo, hi, m.edgeFrom[e]!)), kAlpha[e]!)
-  const weighted = (e: number, f: Interval, s: number): Interval => mul(point(s * data.weights[e]!), f)
+  const weighted = (e: number, f: Interval, s: number): Interval => mul(mul(point(s), K[e]!), f)
   return {
     n,
     unknownOf,
