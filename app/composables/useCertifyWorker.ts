@@ -1,6 +1,6 @@
 import { proxy, wrap, type Remote } from 'comlink'
 import type { CertifyWorkerApi } from '../../workers/certify.worker'
-import type { FamilyPointInput, PointCertificate } from '#shared/certify/family'
+import type { FamilyPointInput, PointCertificate, SegmentCertificate } from '#shared/certify/family'
 import type { FamilySettingsInput } from '#shared/types/family'
 import type { PatternDocument } from '#shared/types/pattern'
 
@@ -26,11 +26,16 @@ export function useCertifyWorker() {
     return ensure().certify(doc, settings, points, proxy(onProgress))
   }
 
+  /** Certifies the segments between consecutive certified points. */
+  function segments(doc: PatternDocument, settings: FamilySettingsInput, points: FamilyPointInput[], certificates: PointCertificate[], onProgress: (done: number, total: number) => void): Promise<SegmentCertificate[]> {
+    return ensure().segments(doc, settings, points, certificates, proxy(onProgress))
+  }
+
   function terminate() {
     worker?.terminate()
     worker = undefined
     api = undefined
   }
   onBeforeUnmount(terminate)
-  return { certify, cancel: () => api?.cancel(), terminate }
+  return { certify, segments, cancel: () => api?.cancel(), terminate }
 }

@@ -9,7 +9,7 @@
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { certifiedChecklist, provenParts, STATUS_WORDS } from '../../shared/certify/checklist'
-import { certifyFamilyPoints } from '../../shared/certify/family'
+import { certifyFamilyPoints, certifyFamilySegments } from '../../shared/certify/family'
 import { certifyDrawing, describeCertificate } from '../../shared/certify/pattern'
 import { hypothesesFromReport } from '../../shared/certify/report-hypotheses'
 import { analyzePattern } from '../../shared/pattern/analyze'
@@ -62,17 +62,20 @@ async function certifyRun(exp: RunExport, patternFile: unknown, asJson: boolean)
   if (typeof patternFile !== 'string') { console.error('wingfold certify: a run export needs --pattern PATTERN (the document the run was computed on)'); return 2 }
   const read = await readPatternFile(patternFile)
   if ('error' in read) { console.error(read.error); return 2 }
-  let certs
+  let certs, segments
   try {
     certs = certifyFamilyPoints(read.doc, exp.settings as never, exp.points ?? [], {
       onProgress: (done, total) => { if (!asJson && process.stderr.isTTY) process.stderr.write(`\r  certified ${done}/${total}`) },
     })
+    segments = certifyFamilySegments(read.doc, exp.settings as never, exp.points ?? [], certs)
   } catch (e) { console.error(`wingfold certify: ${(e as Error).message}`); return 2 }
   const proven = certs.filter(c => c.certificate.certified).length
-  if (asJson) console.log(JSON.stringify({ points: certs, norms: NORMS }, null, 2))
+  const provenSegments = segments.filter(s => s.certificate.certified).length
+  if (asJson) console.log(JSON.stringify({ points: certs, segments, norms: NORMS }, null, 2))
   else {
-    console.log(`${exp.name ?? 'run'}: ${proven} of ${certs.length} points certified`)
+    console.log(`${exp.name ?? 'run'}: ${proven} of ${certs.length} points certified, ${provenSegments} of ${segments.length} segments`)
     for (const c of certs) console.log(`  point ${String(c.index).padStart(4)}  λ = ${c.lambda.toPrecision(8).padEnd(12)} ${describeCertificate(c.certificate)}`)
+    for (const s of segments) console.log(`  segment ${s.from}–${s.to}  λ from ${s.lambdaFrom.toPrecision(6)} to ${s.lambdaTo.toPrecision(6)}: ${describeCertificate(s.certificate)}`)
     console.log(`  ${NORMS}`)
   }
   return proven === certs.length ? 0 : 1

@@ -14,11 +14,21 @@ export const CertificateClaimSchema = z.object({
   rMax: z.number().finite().positive(),
 }).refine(c => c.rMax >= c.rMin, { message: 'rMax must be at least rMin' })
 
+/** A segment claim: the branch between saved points `from` and `from + 1` is certified (the server recomputes it). */
+export const SegmentClaimSchema = z.object({ from: z.number().int().min(0) })
+
 /** POST /api/runs/[runId]/certificates. */
 export const certificateClaimsSchema = z.object({
   claims: z.array(CertificateClaimSchema).min(1, 'claim at least one point').max(MAX_CERTIFICATE_CLAIMS),
+  segments: z.array(SegmentClaimSchema).max(MAX_CERTIFICATE_CLAIMS).default([]),
 })
 export type CertificateClaimsPayload = z.input<typeof certificateClaimsSchema>
 
 /** A stored (server-proven) certificate. */
 export interface StoredCertificate { index: number; rMin: number; rMax: number; provenAt: string }
+
+/** A stored (server-proven) segment certificate between points `from` and `to`. */
+export interface StoredSegmentCertificate { from: number; to: number; rMin: number; rMax: number }
+
+/** GET /api/runs/[runId]/certificates. */
+export interface RunCertificates { certificates: StoredCertificate[]; segments: StoredSegmentCertificate[] }

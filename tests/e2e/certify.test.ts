@@ -1,8 +1,9 @@
 /**
  * Certificates in Chromium against the built server: the demo editor opens a saved shear run of
  * the Fermat pair, clicks "Certify points", watches the worker's progress, and every point's badge
- * turns to "certified (radius r)" once the server has re-proven the claims; after a reload the
- * badges come from the server alone.
+ * turns to "certified (radius r)" once the server has re-proven the claims, the segments between
+ * them too ("the branch from λ = a to λ = b is certified"); after a reload the badges come from the
+ * server alone, and the checklist marks rigidity as proven by interval arithmetic.
  */
 import { describe, expect, it } from 'vitest'
 import { useServerAndBrowser } from '../support/fixtures'
@@ -30,20 +31,26 @@ describe('certificates on the run page', () => {
     await signInWithForm(page, ctx.server.url, 'editor')
     await gotoHydrated(page, `${ctx.server.url}/projects/${torusId}/runs/${runId}`)
     await page.waitForSelector('[data-testid=certify-panel]')
-    expect(await page.locator('[data-testid=certificate-badge][data-certified=false]').count()).toBe(n)
+    expect(await page.locator('[data-testid=certificate-badge][data-certified=false]:not([data-segment])').count()).toBe(n)
     await expect.poll(() => page.locator('[data-testid=certify-summary]').innerText()).toContain(`0 of ${n} saved points certified`)
     await page.click('[data-testid=certify-run]')
     await page.waitForSelector('[data-testid=certify-message]', { timeout: 60_000 })
-    expect(await page.locator('[data-testid=certify-message]').innerText()).toContain(`${n} of ${n} points certified`)
-    await expect.poll(() => page.locator('[data-testid=certificate-badge][data-certified=true]').count()).toBe(n)
+    expect(await page.locator('[data-testid=certify-message]').innerText()).toContain(`${n} of ${n} points and ${n - 1} of ${n - 1} segments certified`)
+    await expect.poll(() => page.locator('[data-testid=certificate-badge][data-certified=true]:not([data-segment])').count()).toBe(n)
     expect(await page.locator('[data-testid=certificate-badge]').first().innerText()).toMatch(/^certified \(radius \d\.\de-\d+\)$/)
     await page.locator('[data-testid=certify-panel]').scrollIntoViewIfNeeded()
     await screenshot(page, 'certify-run-page')
 
     await gotoHydrated(page, `${ctx.server.url}/projects/${torusId}/runs/${runId}`)
     await page.waitForSelector('[data-testid=certify-panel]')
-    expect(await page.locator('[data-testid=certificate-badge][data-certified=true]').count()).toBe(n)
+    expect(await page.locator('[data-testid=certificate-badge][data-certified=true]:not([data-segment])').count()).toBe(n)
+    expect(await page.locator('[data-testid=certificate-badge][data-certified=true][data-segment]').count()).toBe(n - 1)
     expect(await page.locator('[data-testid=certify-summary]').innerText()).toContain(`${n} of ${n} saved points certified`)
+    // the whole run is one certified branch, from λ = 0 to the last saved λ
+    const branch = await page.locator('[data-testid=certified-branch]').allInnerTexts()
+    expect(branch).toHaveLength(1)
+    expect(branch[0]).toMatch(/^The branch from λ = 0\.00000 to λ = -0\.\d+ is certified\.$/)
+    expect(await page.locator('[data-testid=hypothesis-checklist] [data-id=T7]').getAttribute('data-status')).toBe('proven-interval')
     await page.close()
   }, 180_000)
 })

@@ -2,7 +2,8 @@
  * Certificate routes against the built server: a client certifies the saved points of a run
  * with the core (as the run page's worker does) and claims the radii; the server re-proves each
  * claim (shared/certify) before storing it, refuses a tampered claim (a radius smaller than can
- * be proven, a point that does not exist) with nothing written, and keeps viewers out.
+ * be proven, a point that does not exist) with nothing written, and keeps viewers out. Segment
+ * claims name only the pair of points; the server computes and stores its own segment radii.
  */
 import { beforeAll, describe, expect, it } from 'vitest'
 import { useTestServer } from '../support/fixtures'
@@ -52,14 +53,24 @@ describe('certificates of run points', () => {
     const r = await editor.json('POST', `/api/runs/${runId}/certificates`, { claims: [{ index: 999, rMin: 1e-12, rMax: 1e-3 }] })
     expect(r.status).toBe(422)
   })
-  it('honest claims are re-proven, stored, listed and exported', async () => {
-    const r = await editor.json('POST', `/api/runs/${runId}/certificates`, { claims })
+  it('a segment claim whose end is not a saved point is refused', async () => {
+    const last = Math.max(...claims.map(c => c.index))
+    const r = await editor.json('POST', `/api/runs/${runId}/certificates`, { claims, segments: [{ from: last }] })
+    expect(r.status).toBe(422)
+    expect(r.body.data.refused.map((x: { index: number }) => x.index)).toEqual([last])
+  })
+  it('honest claims are re-proven, stored, listed and exported; the server computes the segments itself', async () => {
+    const segments = claims.slice(0, -1).map(c => ({ from: c.index }))
+    const r = await editor.json('POST', `/api/runs/${runId}/certificates`, { claims, segments })
     expect(r.status).toBe(200)
     expect(r.body.certificates).toHaveLength(claims.length)
+    expect(r.body.segments).toHaveLength(segments.length)
+    for (const s of r.body.segments) expect(s.to).toBe(s.from + 1)
     const listed = (await viewer.json('GET', `/api/runs/${runId}/certificates`)).body.certificates
     expect(listed.map((c: { index: number }) => c.index)).toEqual(claims.map(c => c.index))
     expect(listed[0].rMin).toBe(claims[0]!.rMin)
     const exp = (await viewer.json('GET', `/api/runs/${runId}/export.json`)).body
     expect(exp.certificates.proven).toHaveLength(claims.length)
+    expect(exp.certificates.segments).toHaveLength(segments.length)
   })
 })

@@ -56,7 +56,7 @@ describe('wingfold certify', () => {
     await writeFile(file, JSON.stringify({ format: 'wingfold-run', name: 'shear', settings, points }))
     const r = await run('certify', file, '--pattern', example('fermat-pair'))
     expect(r.code).toBe(0)
-    expect(r.stdout).toContain(`${points.length} of ${points.length} points certified`)
+    expect(r.stdout).toContain(`${points.length} of ${points.length} points certified, ${points.length - 1} of ${points.length - 1} segments`)
     expect((await run('certify', file)).code).toBe(2)
   })
 })

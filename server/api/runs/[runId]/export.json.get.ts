@@ -7,5 +7,5 @@ export default defineEventHandler(async (event) => {
   const { run } = await requireRunAccess(event, runId, 'viewer')
   const [data, certificates] = await Promise.all([loadRunExport(runId, run.settings), loadCertificates(runId)])
   setResponseHeader(event, 'content-disposition', `attachment; filename="${exportFileName(runId, run.name, 'json')}"`)
-  return { ...buildRunJson(data), certificates: { norm: 'max-norm of the unknowns', proven: certificates } }
+  return { ...buildRunJson(data), certificates: { norm: 'max-norm of the unknowns', proven: certificates.certificates, segments: certificates.segments } }
 })
