@@ -76,6 +76,15 @@ describe('Fermat–Torricelli point (Kimberling X(13)) in the certified box', ()
   })
 })
 
+describe('size limit', () => {
+  it('above maxSize the answer is "not certified: too large", never a proof', () => {
+    const m = fermatModel([2, 0], [1, 2], [1, 1 / Math.sqrt(3)])
+    const c = certifyHorizontal(m, m.positions, m.lattice, { maxSize: 1 })
+    expect(c.certified).toBe(false)
+    if (!c.certified) expect(c.reason).toBe('too-large')
+  })
+})
+
 describe('non-rigid patterns never certify', () => {
   it('square pair 2×2 supercell (lines slide): not certified, reason not rigid', () => {
     const m = compilePattern(supercell(findPatternExample('square-pair')!.document, 2, 2))
