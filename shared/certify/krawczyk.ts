@@ -57,7 +57,7 @@ export interface CertifyOptions {
 }
 
 export const DEFAULT_CERTIFY_OPTIONS: Required<CertifyOptions> = {
-  maxSize: 1600,
+  maxSize: 1400,
   singularCondition: 1e11,
   bisectionSteps: 12,
   symmetric: false,
