@@ -7,7 +7,7 @@
  */
 import { and, eq, inArray } from 'drizzle-orm'
 import { certifyFamilySegments, verifyCertificateClaims, type CertificateClaim, type PointCertificate } from '#shared/certify/family'
-import type { RunCertificates } from '#shared/types/certificates'
+import { claimsPerRequest, type RunCertificates } from '#shared/types/certificates'
 
 /** Re-proves the claims of run `run` and stores them (one transaction); 422 when one fails. */
 export async function storeCertificateClaims(run: { id: number, graphVersionId: number, settings: string }, claims: CertificateClaim[], segments: { from: number }[] = []): Promise<RunCertificates> {
@@ -16,6 +16,10 @@ export async function storeCertificateClaims(run: { id: number, graphVersionId: 
   const wanted = new Set([...claims.map(c => c.index), ...segments.flatMap(s => [s.from, s.from + 1])])
   const rows = await useDb().select().from(rp).where(and(eq(rp.runId, run.id), inArray(rp.index, [...wanted])))
   const points = rows.map(r => ({ index: r.index, lambda: r.lambda, u: (JSON.parse(r.state) as { u: number[] }).u }))
+  const n = points[0]?.u.length ?? 0
+  if (claims.length + segments.length > claimsPerRequest(n)) {
+    throw httpError(413, 'too_much_work', `Re-proving ${claims.length + segments.length} certificates of ${n} unknowns is more than one request may ask; send at most ${claimsPerRequest(n)}.`)
+  }
   const check = verifyCertificateClaims(doc, settings, points, claims)
   const refused = [...check.refused]
   // segments: both ends must be proven (in this request or stored before)

@@ -10,6 +10,7 @@ import { useTestServer } from '../support/fixtures'
 import { signInAs, type ApiClient } from '../support/http'
 import { findPatternExample } from '../../shared/examples'
 import { certifyFamilyPoints } from '../../shared/certify/family'
+import { claimsPerRequest } from '../../shared/types/certificates'
 import { computeBatches, graphIdByName, projectIdByName } from './runs-helpers'
 
 const ctx = useTestServer()
@@ -40,6 +41,7 @@ describe('certificates of run points', () => {
   it('a viewer may not claim (403); an empty claim list is a 400', async () => {
     expect((await viewer.json('POST', `/api/runs/${runId}/certificates`, { claims })).status).toBe(403)
     expect((await editor.json('POST', `/api/runs/${runId}/certificates`, { claims: [] })).status).toBe(400)
+    expect((await editor.json('POST', `/api/runs/${runId}/certificates`, {})).status).toBe(400)
   })
   it('a tampered claim (existence radius shrunk a millionfold) is refused and nothing is stored', async () => {
     const forged = claims.map((c, i) => i === 1 ? { ...c, rMin: c.rMin * 1e-6 } : c)
@@ -58,6 +60,13 @@ describe('certificates of run points', () => {
     const r = await editor.json('POST', `/api/runs/${runId}/certificates`, { claims, segments: [{ from: last }] })
     expect(r.status).toBe(422)
     expect(r.body.data.refused.map((x: { index: number }) => x.index)).toEqual([last])
+  })
+  it('a request asking more work than one request may is refused with 413 (nothing stored)', async () => {
+    // the Fermat shear has n = 2 unknowns, so claimsPerRequest(2) = MAX_CERTIFICATE_CLAIMS claims fit; one more does not
+    const many = Array.from({ length: claimsPerRequest(2) }, () => ({ from: claims[0]!.index }))
+    const r = await editor.json('POST', `/api/runs/${runId}/certificates`, { claims: [claims[0]], segments: many })
+    expect(r.status).toBe(413)
+    expect((await viewer.json('GET', `/api/runs/${runId}/certificates`)).body.certificates).toEqual([])
   })
   it('honest claims are re-proven, stored, listed and exported; the server computes the segments itself', async () => {
     const segments = claims.slice(0, -1).map(c => ({ from: c.index }))
