@@ -120,7 +120,7 @@ function familySystemOver(doc: PatternDocument, settings: FamilySettings, phaseR
 }
 
 /** Most pieces a segment is split into before it is reported not certified. */
-const MAX_PIECES = 32
+const MAX_PIECES = 64
 
 /**
  * One segment as a chain of pieces: λ-subintervals Λ_j with centres on the chord between the
