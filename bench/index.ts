@@ -164,3 +164,6 @@ for (const m of [32, 71, 100]) {
 const shearExp = Math.log(shear[2]!.stepMs / shear[0]!.stepMs) / Math.log(shear[2]!.V / shear[0]!.V)
 console.log(`growth exponent of the shear step time, V = ${shear[0]!.V} → ${shear[2]!.V}: ${shearExp.toFixed(2)}  (target ≤ 1.3: ${shearExp <= 1.3 ? 'met' : 'MISSED'})`)
 await import('./surface')
+
+// interval certificates by size (bench/certify.ts)
+await import('./certify')

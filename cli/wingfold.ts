@@ -20,6 +20,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   follow: () => import('./commands/follow'),
   map: () => import('./commands/map'),
   surface: () => import('./commands/surface'),
+  certify: () => import('./commands/certify'),
 }
 
 async function help(): Promise<string> {

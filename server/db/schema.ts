@@ -117,6 +117,37 @@ export const runPoints = sqliteTable('run_points', {
   index('run_points_run_special_idx').on(t.runId, t.specialKind),
 ])
 
+/**
+ * Interval certificates of saved run points (shared/certify): a row exists only after the
+ * server re-proved the claimed radii itself — a unique zero within r_min of the stored point,
+ * and no other within r_max (max-norm of the family's unknowns).
+ */
+export const pointCertificates = sqliteTable('point_certificates', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  runId: integer('run_id').notNull().references(() => runs.id, { onDelete: 'cascade' }),
+  pointIndex: integer('point_index').notNull(),
+  rMin: real('r_min').notNull(),
+  rMax: real('r_max').notNull(),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [uniqueIndex('point_certificates_run_point_unique').on(t.runId, t.pointIndex)])
+
+/**
+ * Certified segments of runs: the branch between saved points `from_index` and `to_index`
+ * (consecutive) re-computed and proven by the server (shared/certify/segment.ts): for every λ
+ * between them exactly one zero within r_min of the chord, none other within r_max.
+ */
+export const segmentCertificates = sqliteTable('segment_certificates', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  runId: integer('run_id').notNull().references(() => runs.id, { onDelete: 'cascade' }),
+  fromIndex: integer('from_index').notNull(),
+  toIndex: integer('to_index').notNull(),
+  rMin: real('r_min').notNull(),
+  rMax: real('r_max').notNull(),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [uniqueIndex('segment_certificates_run_from_unique').on(t.runId, t.fromIndex)])
+
 /** Invitations to a project by e-mail (only the token's hash is stored). */
 export const invitations = sqliteTable('invitations', {
   id: integer('id').primaryKey({ autoIncrement: true }),

@@ -1,0 +1,56 @@
+/**
+ * Certificates in Chromium against the built server: the demo editor opens a saved shear run of
+ * the Fermat pair, clicks "Certify points", watches the worker's progress, and every point's badge
+ * turns to "certified (radius r)" once the server has re-proven the claims, the segments between
+ * them too ("the branch from λ = a to λ = b is certified"); after a reload the badges come from the
+ * server alone, and the checklist marks rigidity as proven by interval arithmetic.
+ */
+import { describe, expect, it } from 'vitest'
+import { useServerAndBrowser } from '../support/fixtures'
+import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
+import { signInAs } from '../support/http'
+import { findPatternExample } from '../../shared/examples'
+import { computeBatches, graphIdByName, projectIdByName } from '../server/runs-helpers'
+
+const ctx = useServerAndBrowser()
+const fermat = findPatternExample('fermat-pair')!
+
+describe('certificates on the run page', () => {
+  it('certifies every saved point from the browser', async () => {
+    const editor = await signInAs(ctx.server.url, 'editor')
+    const torusId = await projectIdByName(editor, 'Genus-three torus gluings')
+    const graphId = await graphIdByName(editor, torusId, fermat.title)
+    const shear = { path: { kind: 'shear' as const }, to: -0.5, stop: { maxPoints: 12 } }
+    const runId = (await editor.json('POST', `/api/projects/${torusId}/runs`, { graphId, name: 'shear to certify', settings: shear })).body.id
+    const batches = computeBatches(fermat.document, shear, 6)
+    for (const b of batches) await editor.json('POST', `/api/runs/${runId}/points`, { points: b.points, specialPoints: b.specialPoints })
+    await editor.json('POST', `/api/runs/${runId}/finish`, { status: 'complete' })
+    const n = batches.reduce((s, b) => s + b.points.length, 0)
+
+    const page = await ctx.browser.newPage()
+    await signInWithForm(page, ctx.server.url, 'editor')
+    await gotoHydrated(page, `${ctx.server.url}/projects/${torusId}/runs/${runId}`)
+    await page.waitForSelector('[data-testid=certify-panel]')
+    expect(await page.locator('[data-testid=certificate-badge][data-certified=false]:not([data-segment])').count()).toBe(n)
+    await expect.poll(() => page.locator('[data-testid=certify-summary]').innerText()).toContain(`0 of ${n} saved points certified`)
+    await page.click('[data-testid=certify-run]')
+    await page.waitForSelector('[data-testid=certify-message]', { timeout: 60_000 })
+    expect(await page.locator('[data-testid=certify-message]').innerText()).toContain(`${n} of ${n} points and ${n - 1} of ${n - 1} segments certified`)
+    await expect.poll(() => page.locator('[data-testid=certificate-badge][data-certified=true]:not([data-segment])').count()).toBe(n)
+    expect(await page.locator('[data-testid=certificate-badge]').first().innerText()).toMatch(/^certified \(radius \d\.\de-\d+\)$/)
+    await page.locator('[data-testid=certify-panel]').scrollIntoViewIfNeeded()
+    await screenshot(page, 'certify-run-page')
+
+    await gotoHydrated(page, `${ctx.server.url}/projects/${torusId}/runs/${runId}`)
+    await page.waitForSelector('[data-testid=certify-panel]')
+    expect(await page.locator('[data-testid=certificate-badge][data-certified=true]:not([data-segment])').count()).toBe(n)
+    expect(await page.locator('[data-testid=certificate-badge][data-certified=true][data-segment]').count()).toBe(n - 1)
+    expect(await page.locator('[data-testid=certify-summary]').innerText()).toContain(`${n} of ${n} saved points certified`)
+    // the whole run is one certified branch, from λ = 0 to the last saved λ
+    const branch = await page.locator('[data-testid=certified-branch]').allInnerTexts()
+    expect(branch).toHaveLength(1)
+    expect(branch[0]).toMatch(/^The branch from λ = 0\.00000 to λ = -0\.\d+ is certified\.$/)
+    expect(await page.locator('[data-testid=hypothesis-checklist] [data-id=T7]').getAttribute('data-status')).toBe('proven-interval')
+    await page.close()
+  }, 180_000)
+})
