@@ -49,7 +49,7 @@ function details(r: PatternReport, name: VerdictName): string {
     case 'phaseClosure': return `max defect ${num(v.phaseClosure.maxDefect)}`
     case 'phaseBalance': {
       const g = v.phaseBalance
-      return `|F|/K̄ ${num(g.residualNorm)}, ${g.equations.length} equations${g.dependsOnK ? ', depends on K' : ''}${g.nearWall ? ', near a wall' : ''}`
+      return `|F|/K̄ ${num(g.residualNorm)}, ${g.equations.length} equation(s)${g.dependsOnK ? ', depends on K' : ''}${g.nearWall ? ', near a wall' : ''}`
     }
     case 'phaseRigidity': {
       const g = v.phaseRigidity
@@ -86,8 +86,8 @@ export function formatReport(r: PatternReport): string {
 /** The vertical equations as edge sets, the length levels and the wall notes. */
 function verticalEquationLines(r: PatternReport): string[] {
   const g = r.verdicts.phaseBalance
-  if (!g.equations.length) return ['', '  vertical balance on cuts: no equations (no cut has a closed edge)']
-  const out = ['', `  vertical balance on cuts (${g.equations.length} equations, one per merging part of each length level):`]
+  if (!g.equations.length) return ['', '  vertical balance on cuts: no equations (no cut crosses a closed edge)']
+  const out = ['', `  vertical balance on cuts: ${g.equations.length} equation(s), each the sum of K·sin φ over the signed edges listed:`]
   g.equations.forEach((q, i) => {
     const terms = q.terms.map(t => `${t.sign < 0 ? '−' : '+'}${t.edge}`).join(' ')
     out.push(`    [${i + 1}] level ${q.level + 1} (ℓ ${num(q.length)}), X = {${q.vertices.join(', ')}}: ${terms} = ${num(q.residual)}${q.dependsOnK ? '  (depends on K)' : ''}`)
