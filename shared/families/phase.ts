@@ -82,7 +82,7 @@ export function phaseProblem(m: PatternModel, path: PhasePath): { problem: Conti
       const Flambda = new Float64Array(n)
       for (let i = 0; i < n; i++) Flambda[i] = dA[2 * i]! * path.dAlpha[0] + dA[2 * i + 1]! * path.dAlpha[1]
       // weight scaling: ∂F/∂λ = the rows evaluated with the weights dK (F is linear in K)
-      levelResidual(m, levels, psi, alpha, Float64Array.from(path.dWeights), G)
+      levelResidual(m, levels, psi, alpha, path.dWeights, G)
       for (let i = 0; i < n; i++) Flambda[i]! += G[i]!
       return { Fu, Flambda }
     },

@@ -74,7 +74,7 @@ export function planeTwoParameterProblem(m: PatternModel, s: MapSettings): TwoPa
   const column = Int32Array.from({ length: V }, (_, v) => v - 1)
   return {
     n: V - 1,
-    residual: (u, a, b, out) => { levelResidual(m, levels, psi(u), [a, b], m.weight, out as Float64Array<ArrayBuffer>) },
+    residual: (u, a, b, out) => { levelResidual(m, levels, psi(u), [a, b], m.weight, out) },
     jacobianU: (u, a, b) => pinnedLevelJacobian(levelJacobian(m, levels, psi(u), [a, b], m.weight), column, V - 1),
   }
 }

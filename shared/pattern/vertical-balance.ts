@@ -20,7 +20,7 @@ export function modelLevels(m: PatternModel, p: Float64Array = m.positions, lat:
 /** F (one entry per row) into `out`. */
 export function levelResidual(
   m: PatternModel, s: LevelStructure, psi: Float64Array, alpha: readonly [number, number], weights: Float64Array,
-  out = new Float64Array(s.rows.length),
+  out: Float64Array = new Float64Array(s.rows.length),
 ): Float64Array {
   const phi = phaseDifferences(m, psi, alpha)
   s.rows.forEach((r, i) => {
@@ -50,7 +50,7 @@ export function levelJacobian(
 /** ∂F/∂(α1, α2): dense rows × 2, row-major (entry (i, j) at out[2i + j]). */
 export function levelAlphaDerivative(
   m: PatternModel, s: LevelStructure, psi: Float64Array, alpha: readonly [number, number], weights: Float64Array,
-  out = new Float64Array(2 * s.rows.length),
+  out: Float64Array = new Float64Array(2 * s.rows.length),
 ): Float64Array {
   out.fill(0)
   const phi = phaseDifferences(m, psi, alpha)
