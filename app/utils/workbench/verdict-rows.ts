@@ -37,7 +37,7 @@ export function verdictRows(r: PatternReport): VerdictRow[] {
       : `σ_min ${fmt(v.rigidity.sigmaMin)} · inertia ${inertia ? `${inertia.negative}/${inertia.zero}/${inertia.positive}` : '—'} (${v.rigidity.method})`],
     ['ordinary', 'every vertex ordinary', ordinaryDetail(r)],
     ['phaseClosure', 'phases close around faces', `max defect ${fmt(v.phaseClosure.maxDefect)}`],
-    ['phaseBalance', 'vertically balanced on cuts', `${v.phaseBalance.equations.length} equations · residual ${fmt(v.phaseBalance.residualNorm)}${v.phaseBalance.dependsOnK ? ' · depends on K' : ''}${v.phaseBalance.nearWall ? ' · near a wall' : ''}`],
+    ['phaseBalance', 'vertically balanced on cuts', `${v.phaseBalance.equations.length} equation${v.phaseBalance.equations.length === 1 ? '' : 's'} · residual ${fmt(v.phaseBalance.residualNorm)}${v.phaseBalance.dependsOnK ? ' · depends on K' : ''}${v.phaseBalance.nearWall ? ' · near a wall' : ''}`],
     ['phaseRigidity', 'phase-rigid', `σ_min ${fmt(v.phaseRigidity.sigmaMin)} · inertia ${pInertia ? `${pInertia.negative}/${pInertia.zero}/${pInertia.positive}` : '—'}`],
   ]
   return rows.map(([name, label, detail]) => {
