@@ -1,0 +1,52 @@
+/**
+ * The published existence conditions in the workbench and on a run page, in real Chromium
+ * against the built server. Pattern: Meeks' two towers in an acute lattice [H. Chen, M. Traizet,
+ * arXiv 2103.15676, 2021, Ex. 7.1]: a = 2π/3, b = π/3 is phase-rigid (det 2 cos b = 1) with one
+ * vertical equation on the shortest edges e2, e4; a = π/3, b = π/2 is not (det 2 cos b = 0).
+ */
+import { describe, expect, it } from 'vitest'
+import { useServerAndBrowser } from '../support/fixtures'
+import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
+import { signInAs } from '../support/http'
+import { meeks } from '../unit/pattern/published-patterns'
+
+const ctx = useServerAndBrowser()
+
+async function openPattern(name: string, doc: unknown) {
+  const editor = await signInAs(ctx.server.url, 'editor')
+  const projects = (await editor.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>
+  const projectId = projects.find(p => p.name === 'Genus-three torus gluings')!.id
+  const created = await editor.json('POST', `/api/projects/${projectId}/graphs`, { name, document: doc })
+  expect(created.status).toBe(201)
+  await ctx.browser.context.clearCookies()
+  const page = await ctx.browser.newPage()
+  await signInWithForm(page, ctx.server.url, 'editor')
+  await gotoHydrated(page, `${ctx.server.url}/projects/${projectId}/patterns/${created.body.id}`)
+  await page.waitForSelector('[data-testid=existence-line]', { timeout: 30_000 })
+  return page
+}
+
+describe('published conditions in the workbench', () => {
+  it('Meeks, a = 2π/3, b = π/3: one equation on e2, e4 (depends on K), levels, every hypothesis holds', async () => {
+    const page = await openPattern('Meeks acute rigid', meeks([1, 0], [0.3, 1.3], 2 * Math.PI / 3, Math.PI / 3))
+    await page.waitForFunction(() => document.querySelector('[data-testid=existence-line]')?.textContent?.includes('all hypotheses'), null, { timeout: 30_000 })
+    expect(await page.textContent('[data-testid=vertical-equations]')).toMatch(/\{w\}: −e2 − e4/)
+    expect(await page.getAttribute('[data-testid=vertical-equations] li', 'data-depends-on-k')).toBe('true')
+    expect(await page.textContent('[data-testid=length-levels]')).toMatch(/level 1 · ℓ 0\.738 · e2, e4/)
+    expect(await page.textContent('[data-testid=existence-line]')).toMatch(/embedded triply periodic/)
+    expect(await page.textContent('[data-testid=k-explanation]')).toMatch(/K \(default 1\)/)
+    expect(await page.locator('[data-testid=conditions-panel] >> text=Results are numerical evidence, not proofs.').count()).toBe(1)
+    await screenshot(page, 'published-conditions-meeks-rigid')
+    await page.close()
+  })
+
+  it('Meeks, a = π/3, b = π/2: phase rigidity fails and the checklist names T11', async () => {
+    const page = await openPattern('Meeks acute flexible', meeks([1, 0], [0.3, 1.3], Math.PI / 3, Math.PI / 2))
+    await page.waitForFunction(() => document.querySelector('[data-testid=existence-line]')?.textContent?.includes('failing'), null, { timeout: 30_000 })
+    expect(await page.textContent('[data-testid=existence-line]')).toBe('failing: T11')
+    expect(await page.getAttribute('[data-testid=existence-checklist] li[data-id=T11]', 'data-status')).toBe('fails')
+    expect(await page.getAttribute('[data-testid=verdict-phaseRigidity]', 'data-ok')).toBe('false')
+    await screenshot(page, 'published-conditions-meeks-flexible')
+    await page.close()
+  })
+})
