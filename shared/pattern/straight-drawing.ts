@@ -55,28 +55,35 @@ export function checkStraightDrawing(m: PatternModel, p: Float64Array = m.positi
   const shifts: [number, number][] = []
   for (let i = -N; i <= N; i++) for (let j = -N; j <= N; j++) shifts.push([i * w1[0] + j * w2[0], i * w1[1] + j * w2[1]])
   const out: StraightDrawingCheck = { ok: true, checked: true, coincidentVertices: [], crossings: [] }
+  if (E > maxEdges || V > maxEdges) return { ...out, checked: false }
   for (let v = 0; v < V; v++) {
     for (let w = v + 1; w < V; w++) {
       const dx = p[2 * w]! - p[2 * v]!, dy = p[2 * w + 1]! - p[2 * v + 1]!
       if (shifts.some(([sx, sy]) => Math.hypot(dx + sx, dy + sy) <= eps * scale) && out.coincidentVertices.length < 10) out.coincidentVertices.push([v, w])
     }
   }
-  if (E > maxEdges) return { ...out, ok: out.coincidentVertices.length === 0, checked: false }
   // the two edges of a face with two half-edges may share their segment
   const faces = computeFaces(m)
   const partner = new Int32Array(E).fill(-1)
   for (const c of faces.cycles) if (c.length === 2) { partner[c[0]! >> 1] = c[1]! >> 1; partner[c[1]! >> 1] = c[0]! >> 1 }
+  const len = Float64Array.from({ length: E }, (_, e) => Math.hypot(x[2 * e]!, x[2 * e + 1]!))
   for (let e = 0; e < E && out.crossings.length < 10; e++) {
     const ax = p[2 * m.edgeFrom[e]!]!, ay = p[2 * m.edgeFrom[e]! + 1]!
+    const mx = ax + x[2 * e]! / 2, my = ay + x[2 * e + 1]! / 2
     for (let f = e; f < E; f++) {
       const bx = p[2 * m.edgeFrom[f]!]!, by = p[2 * m.edgeFrom[f]! + 1]!
-      const meets = shifts.some(([sx, sy]) => {
-        if (f === e && sx === 0 && sy === 0) return false
-        if (partner[e] === f && interiorsMeet(ax, ay, x[2 * e]!, x[2 * e + 1]!, bx + sx, by + sy, x[2 * f]!, x[2 * f + 1]!, eps)) {
-          return !sameSegment(ax, ay, x[2 * e]!, x[2 * e + 1]!, bx + sx, by + sy, x[2 * f]!, x[2 * f + 1]!, eps * scale)
-        }
-        return interiorsMeet(ax, ay, x[2 * e]!, x[2 * e + 1]!, bx + sx, by + sy, x[2 * f]!, x[2 * f + 1]!, eps)
-      })
+      // midpoint distance bound: the segments can only meet when the midpoints are within (ℓ_e + ℓ_f)/2
+      const reach = (len[e]! + len[f]!) / 2 + eps * scale
+      const dx = bx + x[2 * f]! / 2 - mx, dy = by + x[2 * f + 1]! / 2 - my
+      let meets = false
+      for (let k = 0; k < shifts.length && !meets; k++) {
+        const sx = shifts[k]![0], sy = shifts[k]![1]
+        if (f === e && sx === 0 && sy === 0) continue
+        if (Math.abs(dx + sx) > reach || Math.abs(dy + sy) > reach) continue
+        if (!interiorsMeet(ax, ay, x[2 * e]!, x[2 * e + 1]!, bx + sx, by + sy, x[2 * f]!, x[2 * f + 1]!, eps)) continue
+        // the two edges of a 2-face may share their segment
+        meets = !(partner[e] === f && sameSegment(ax, ay, x[2 * e]!, x[2 * e + 1]!, bx + sx, by + sy, x[2 * f]!, x[2 * f + 1]!, eps * scale))
+      }
       if (meets) { out.crossings.push([e, f]); if (out.crossings.length >= 10) break }
     }
   }

@@ -13,6 +13,7 @@ import { compilePattern } from '../../../shared/pattern/model'
 import { analyzePhaseRigidity, solvePhases } from '../../../shared/pattern/phase-solve'
 import { phaseResidual } from '../../../shared/pattern/phases'
 import { analyzeRigidity } from '../../../shared/pattern/rigidity'
+import { analyzePlaneRigidity } from '../../../shared/pattern/plane-rigidity'
 import { levelStructure, type LevelGraph } from '../../../shared/pattern/vertical-levels'
 import { modelLevels } from '../../../shared/pattern/vertical-balance'
 import { ALL_HOLD_LINE } from '../../../shared/pattern/existence'
@@ -261,6 +262,17 @@ describe('plane rigidity as published [C-II Def. 1, Prop. 1]', () => {
     expect(r.verdicts.rigidity.plane!.rank).toBe(8)
     expect(r.verdicts.rigidity.plane!.familyDimension).toBe(6)
     expect(r.verdicts.ordinary.ok).toBe(true)
+  })
+
+  it('the sparse path (M Mᵀ by LDLᵀ) gives the dense rank, σ_2V and dim D (square of lines, triangle, parallel wings)', () => {
+    const para = { ...oneTower(), wings: [[1, 0], [1, 0], [-1, 0], [-1, 0]].map((direction, i) => ({ id: `w${i}`, vertex: 'o', direction: direction as [number, number] })) }
+    for (const doc of [squareOfLines(), planeTriangle(EQUILATERAL, [0, 0, 0]), para]) {
+      const m = compilePattern(doc)
+      const d = analyzePlaneRigidity(m, m.positions, m.lattice, 1e-7, 400)
+      const s = analyzePlaneRigidity(m, m.positions, m.lattice, 1e-7, 0)
+      expect([s.rank, s.familyDimension, s.rigid]).toEqual([d.rank, d.familyDimension, d.rigid])
+      if (d.rigid) expect(Math.abs(s.sigma - d.sigma)).toBeLessThan(1e-8 * Math.max(1, d.sigma))
+    }
   })
 
   it('all wing lines parallel: rank M drops, with a left null vector of M as witness (derived)', () => {
