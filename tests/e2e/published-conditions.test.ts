@@ -4,11 +4,14 @@
  * arXiv 2103.15676, 2021, Ex. 7.1]: a = 2π/3, b = π/3 is phase-rigid (det 2 cos b = 1) with one
  * vertical equation on the shortest edges e2, e4; a = π/3, b = π/2 is not (det 2 cos b = 0).
  */
+import { createClient } from '@libsql/client'
+import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { useServerAndBrowser } from '../support/fixtures'
 import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
 import { signInAs } from '../support/http'
 import { meeks } from '../unit/pattern/published-patterns'
+import { computeBatches } from '../server/runs-helpers'
 
 const ctx = useServerAndBrowser()
 
@@ -47,6 +50,39 @@ describe('published conditions in the workbench', () => {
     expect(await page.getAttribute('[data-testid=existence-checklist] li[data-id=T11]', 'data-status')).toBe('fails')
     expect(await page.getAttribute('[data-testid=verdict-phaseRigidity]', 'data-ok')).toBe('false')
     await screenshot(page, 'published-conditions-meeks-flexible')
+    await page.close()
+  })
+})
+
+describe('a run checked under the earlier definition of vertical balance', () => {
+  it('is shown as such on its page, and "Re-verify now" checks it on cuts', async () => {
+    const doc = meeks([1, 0], [0.3, 1.3], 2 * Math.PI / 3, Math.PI / 3)
+    const settings = { path: { kind: 'alpha1' as const }, to: doc.phases!.alpha[0] + 0.3, stop: { maxPoints: 20 } }
+    const editor = await signInAs(ctx.server.url, 'editor')
+    const projects = (await editor.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>
+    const projectId = projects.find(p => p.name === 'Genus-three torus gluings')!.id
+    const g = await editor.json('POST', `/api/projects/${projectId}/graphs`, { name: 'Meeks for a phase run', document: doc })
+    const run = await editor.json('POST', `/api/projects/${projectId}/runs`, { graphId: g.body.id, name: 'alpha1 checked earlier', settings })
+    const runId = run.body.id as number
+    for (const b of computeBatches(doc, settings, 10)) await editor.json('POST', `/api/runs/${runId}/points`, { points: b.points, specialPoints: b.specialPoints })
+    await editor.json('POST', `/api/runs/${runId}/finish`, { status: 'complete' })
+    // as a row verified before the definition was recorded (the migration leaves it empty)
+    const db = createClient({ url: `file:${join(ctx.server.dataDir, 'wingfold.db')}` })
+    await db.execute({ sql: 'UPDATE runs SET vertical_balance = NULL WHERE id = ?', args: [runId] })
+    db.close()
+
+    await ctx.browser.context.clearCookies()
+    const page = await ctx.browser.newPage()
+    await signInWithForm(page, ctx.server.url, 'editor')
+    await gotoHydrated(page, `${ctx.server.url}/projects/${projectId}/runs/${runId}`)
+    const note = page.locator('[data-testid=vertical-balance-definition]')
+    expect(await note.getAttribute('data-definition')).toBe('earlier')
+    expect(await note.textContent()).toMatch(/earlier definition of vertical balance/)
+    await screenshot(page, 'published-conditions-run-earlier-definition')
+    await page.click('[data-testid=reverify]')
+    await expect.poll(() => note.getAttribute('data-definition'), { timeout: 15_000 }).toBe('cuts-v1')
+    expect(await note.textContent()).toMatch(/published definition/)
+    expect(await page.getAttribute('[data-testid=run-verification]', 'data-state')).toBe('verified')
     await page.close()
   })
 })
