@@ -294,7 +294,7 @@ function planeRigidityVerdict(m: PatternModel, p: Float64Array, lat: PatternMode
   const r = analyzePlaneRigidity(m, p, lat, tolerance)
   const { witness, ...plane } = r
   return {
-    method: 'dense', trivialDimension: 2, dimension: r.rows, sigmaMin: r.sigma, lengthScale: r.lengthScale,
+    method: r.method, trivialDimension: 2, dimension: r.rows, sigmaMin: r.sigma, lengthScale: r.lengthScale,
     inertia: null, eigenvalues: [], tolerance, plane,
     ok: r.rigid,
     ...(witness ? {

@@ -23,6 +23,8 @@ import { tripletsToDense } from './spectrum'
 
 /** The published plane rigidity numbers. */
 export interface PlaneRigidityResult {
+  /** Dense eigenvalues of M Mᵀ, or sparse LDLᵀ inertia with inverse iteration. */
+  method: 'dense' | 'sparse'
   /** 2V: the rank needed. */
   rows: number
   /** 2V + |R|. */
@@ -92,7 +94,7 @@ export function analyzePlaneRigidity(
     const rank = 2 * V - zero
     const rigid = zero === 0
     return {
-      ...base, rank, sigma: Math.sqrt(Math.max(0, s.sigmaMin)), familyDimension: 2 * V - 2 + W - rank, lengthScale, rigid,
+      ...base, method: 'sparse', rank, sigma: Math.sqrt(Math.max(0, s.sigmaMin)), familyDimension: 2 * V - 2 + W - rank, lengthScale, rigid,
       ...(rigid ? {} : { witness: Array.from({ length: V }, (_, v) => [s.mode[2 * v]!, s.mode[2 * v + 1]!] as [number, number]) }),
     }
   }
@@ -105,7 +107,7 @@ export function analyzePlaneRigidity(
   const sigma = ev.length ? Math.sqrt(Math.max(0, ev[k]!)) : Infinity
   const rank = ev.filter(x => Math.sqrt(Math.max(0, x)) > tolerance).length
   const rigid = rank === 2 * V
-  const out: PlaneRigidityResult = { ...base, rank, sigma, familyDimension: 2 * V - 2 + W - rank, lengthScale, rigid }
+  const out: PlaneRigidityResult = { ...base, method: 'dense', rank, sigma, familyDimension: 2 * V - 2 + W - rank, lengthScale, rigid }
   if (!rigid) {
     const y = eig.eigenvectorMatrix.getColumn(k)
     out.witness = Array.from({ length: V }, (_, v) => [y[2 * v]!, y[2 * v + 1]!] as [number, number])
