@@ -20,7 +20,7 @@ export function edgeLevels(r: PatternReport): Map<string, number> {
 }
 
 /** One equation as text, e.g. "{w}: −e2 − e4" (the set X, then the signed edges whose K·sin φ it sums). */
-export function equationText(q: PatternReport['verdicts']['phaseBalance']['equations'][number]): string {
+export function equationText(q: { vertices: string[], terms: { edge: string, sign: number }[] }): string {
   const terms = q.terms.map((t, i) => (i === 0 ? `${t.sign < 0 ? '−' : ''}${t.edge}` : `${t.sign < 0 ? '−' : '+'} ${t.edge}`)).join(' ')
   return `{${q.vertices.join(', ')}}: ${terms}`
 }

@@ -5,13 +5,23 @@
  * for an acute one (e2, e4 shortest). Sheared from ω2 = (−0.2, 1.3) by s·ω1, ω1 = (1, 0), the
  * lattice is orthogonal at s = 0.2 exactly: the wall (derived).
  */
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
+
+// app/utils import the core through Nuxt's #shared alias; point it at the same files here
+vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
+vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
+vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
+vi.mock('#shared/families/walls', () => import('../../../shared/families/walls'))
+vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
+vi.mock('#shared/pattern/balance-solve', () => import('../../../shared/pattern/balance-solve'))
 import { FamilyRunner } from '../../../shared/families'
 import { conditionEvents, describeWall } from '../../../shared/families/walls'
 import { compilePattern } from '../../../shared/pattern/model'
 import type { PatternDocument } from '../../../shared/types/pattern'
 import type { FamilySettingsInput } from '../../../shared/types/family'
 import { meeks, twoTowers } from '../pattern/published-patterns'
+import { wallAt } from '../../../app/utils/family/wall'
+import { parseFamilySettings } from '../../../shared/types/family'
 
 function runToEnd(doc: PatternDocument, settings: FamilySettingsInput) {
   const r = new FamilyRunner(doc, settings)
@@ -45,6 +55,10 @@ describe('walls along a lattice shear of Meeks [CT-I Ex. 7.1]', () => {
     expect(d.before.balanced && d.at.balanced && d.after.balanced).toBe(true)
     expect(d.phaseBranchEnds).toBe(false)
     expect(d.ties.map(t => t.edges.join('/')).length).toBeGreaterThan(0)
+    // the point inspector's reading of the same special point (balanced drawings at λ ∓ 1e-6)
+    const w2 = wallAt(doc, parseFamilySettings({ path: { kind: 'shear' }, to: 0.5 }), w.lambda, w.u)
+    expect([w2.before.phaseRigid, w2.at.phaseRigid, w2.after.phaseRigid]).toEqual([true, true, false])
+    expect(w2.after.equations[0]!.terms.map(t => t.edge).sort()).toEqual(['e2', 'e4'])
   })
 
   it('trivial phases: no wall event (every structure is balanced)', () => {
