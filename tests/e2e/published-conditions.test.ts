@@ -86,3 +86,34 @@ describe('a run checked under the earlier definition of vertical balance', () =>
     await page.close()
   })
 })
+
+describe('a wall along a lattice run [CT-I Ex. 7.1, Rem. 6.5]', () => {
+  it('Meeks sheared through the orthogonal lattice: the wall special point shows the equations before, at and after', async () => {
+    // a = 2π/3, b = π/2: before (obtuse) det 2 cos a ≠ 0, after (acute) det 2 cos b = 0 (derived from Ex. 7.1)
+    const doc = meeks([1, 0], [-0.2, 1.3], 2 * Math.PI / 3, Math.PI / 2)
+    const settings = { path: { kind: 'shear' as const }, to: 0.4, stop: { maxPoints: 60 } }
+    const editor = await signInAs(ctx.server.url, 'editor')
+    const projects = (await editor.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>
+    const projectId = projects.find(p => p.name === 'Genus-three torus gluings')!.id
+    const g = await editor.json('POST', `/api/projects/${projectId}/graphs`, { name: 'Meeks for a shear', document: doc })
+    const run = await editor.json('POST', `/api/projects/${projectId}/runs`, { graphId: g.body.id, name: 'shear through a wall', settings })
+    const runId = run.body.id as number
+    for (const b of computeBatches(doc, settings, 10)) await editor.json('POST', `/api/runs/${runId}/points`, { points: b.points, specialPoints: b.specialPoints })
+    await editor.json('POST', `/api/runs/${runId}/finish`, { status: 'complete' })
+
+    await ctx.browser.context.clearCookies()
+    const page = await ctx.browser.newPage()
+    await signInWithForm(page, ctx.server.url, 'editor')
+    await gotoHydrated(page, `${ctx.server.url}/projects/${projectId}/runs/${runId}`)
+    await page.click('[data-testid=special-points] tr[data-kind=wall]')
+    await page.waitForSelector('[data-testid=wall-details]', { timeout: 15_000 })
+    const cells = async (side: string) => (await page.locator(`[data-testid=wall-details] tr[data-side=${side}] td`).allTextContents()).map(t => t.trim())
+    expect(await cells('before')).toEqual(['before', '{w}: −e1 − e3', 'yes', 'yes'])
+    // at the tie all four edges are one level (their order inside the level follows the lengths)
+    expect((await cells('at'))[1]!.match(/e\d/g)!.sort()).toEqual(['e1', 'e2', 'e3', 'e4'])
+    expect(await cells('after')).toEqual(['after', '{w}: −e2 − e4', 'yes', 'no'])
+    expect(await page.textContent('[data-testid=wall-branch]')).toMatch(/also solve/)
+    await screenshot(page, 'published-conditions-wall')
+    await page.close()
+  })
+})
