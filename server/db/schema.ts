@@ -90,6 +90,11 @@ export const runs = sqliteTable('runs', {
   specialCount: integer('special_count').notNull().default(0),
   verification: text('verification', { enum: VERIFICATION_STATES }).notNull().default('pending'),
   verificationReason: text('verification_reason'),
+  /**
+   * Definition of vertical balance the verification used: 'cuts-v1' (on cuts, over each cut's
+   * shortest edges, as published); null for rows verified before it (vertex sums over all edges).
+   */
+  verticalBalance: text('vertical_balance'),
   appVersion: text('app_version').notNull(),
   authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
   parentRunId: integer('parent_run_id'),
@@ -272,6 +277,11 @@ export const maps = sqliteTable('maps', {
   workers: integer('workers'),
   verification: text('verification', { enum: VERIFICATION_STATES }).notNull().default('pending'),
   verificationReason: text('verification_reason'),
+  /**
+   * Definition of vertical balance the verification used: 'cuts-v1' (on cuts, over each cut's
+   * shortest edges, as published); null for rows verified before it (vertex sums over all edges).
+   */
+  verticalBalance: text('vertical_balance'),
   appVersion: text('app_version').notNull(),
   authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
   createdAt: createdAt(),

@@ -56,7 +56,7 @@ function toSummary(r: SummaryRow): MapSummary {
   return {
     id: m.id, projectId: m.projectId, name: m.name, plane: m.plane as MapSummary['plane'], graphId: r.graphId, graphName: r.graphName,
     version: r.version, cellCount: m.cellCount, solvedCount: m.solvedCount, wallMs: m.wallMs, workers: m.workers,
-    verification: m.verification, verificationReason: m.verificationReason, authorName: r.authorName, createdAt: m.createdAt.toISOString(),
+    verification: m.verification, verificationReason: m.verificationReason, verticalBalance: m.verticalBalance, authorName: r.authorName, createdAt: m.createdAt.toISOString(),
   }
 }
 

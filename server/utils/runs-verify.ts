@@ -14,6 +14,7 @@ import { parseFamilySettings, type FamilySettings } from '#shared/types/family'
 import { parsePatternDocument, type PatternDocument } from '#shared/types/pattern'
 import type { z } from 'zod'
 import type { RunPointSchema, RunSpecialPointSchema } from '#shared/types/runs'
+import { VERTICAL_BALANCE_DEFINITION } from '#shared/pattern/report'
 import { noticeRunVerdict } from '../mail/notices'
 
 /** Largest max|F| a stored point may have (F is dimensionless for drawings; the engine converges to 1e-10). */
@@ -84,18 +85,20 @@ export async function loadRunProblem(run: { graphVersionId: number, settings: st
 
 /** Marks a run rejected with the reason (it stays rejected). */
 export async function rejectRun(runId: number, reason: string): Promise<void> {
-  await useDb().update(tables.runs).set({ verification: 'rejected', verificationReason: reason }).where(eq(tables.runs.id, runId))
+  await useDb().update(tables.runs).set({ verification: 'rejected', verificationReason: reason, verticalBalance: VERTICAL_BALANCE_DEFINITION }).where(eq(tables.runs.id, runId))
   await noticeRunVerdict(runId)
 }
 
 /**
  * Re-checks a run from its stored rows (the sample rule of the file header) and records the
  * verdict: "verified" with the largest residual, or "rejected" naming the offending points.
- * A run already rejected, or without points, keeps its state.
+ * A run already rejected, or without points, keeps its state, unless `fresh` (re-verification
+ * on demand under the current definition of vertical balance: the verdict is recomputed from the
+ * stored points and replaces the old one).
  */
-export async function verifyStoredRun(runId: number): Promise<void> {
+export async function verifyStoredRun(runId: number, fresh = false): Promise<void> {
   const run = await useDb().query.runs.findFirst({ where: eq(tables.runs.id, runId) })
-  if (!run || run.verification === 'rejected' || run.pointCount === 0) return
+  if (!run || (run.verification === 'rejected' && !fresh) || run.pointCount === 0) return
   const { doc, settings } = await loadRunProblem(run)
   const picks = new Set(verificationSample(run.pointCount))
   const rows = await useDb().select().from(tables.runPoints).where(eq(tables.runPoints.runId, runId))
@@ -105,8 +108,8 @@ export async function verifyStoredRun(runId: number): Promise<void> {
   const check = checkPoints(doc, settings, regular, special)
   const sampled = run.pointCount > FULL_CHECK_MAX_POINTS ? ` (sample of ${regular.length} of ${run.pointCount} points plus every special point)` : ''
   await useDb().update(tables.runs).set(check.ok
-    ? { verification: 'verified', verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${check.maxResidual.toExponential(2)})${sampled}.` }
-    : { verification: 'rejected', verificationReason: rejectionReason(check) }).where(eq(tables.runs.id, runId))
+    ? { verification: 'verified', verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${check.maxResidual.toExponential(2)})${sampled}.`, verticalBalance: VERTICAL_BALANCE_DEFINITION }
+    : { verification: 'rejected', verificationReason: rejectionReason(check), verticalBalance: VERTICAL_BALANCE_DEFINITION }).where(eq(tables.runs.id, runId))
   await noticeRunVerdict(runId) // e-mail to the author (never throws; respects the opt-out)
 }
 

@@ -1,14 +1,18 @@
 /**
- * Phase families (domain.md §5–6): F(u, λ) = G(ψ(u); α(λ), K(λ)) without the pinned vertex's
- * equation, u = ψ_1..ψ_{V−1} (ψ_0 pinned: the global phase shift), n = V − 1. F_u is the
- * trailing block of ∂G/∂ψ (a weighted graph Laplacian, symmetric); F_λ is (∂G/∂α)·dα/dλ for
- * α paths and Σ_{e scaled} ±K_e⁰ sin φ_e for a weight scaling.
+ * Phase families: F(u, λ) = the V − 1 level rows of vertical balance on cuts (H. Chen,
+ * M. Traizet, arXiv 2103.15676, 2021, Def. 6.2; see shared/pattern/vertical-levels.ts) at
+ * ψ(u), α(λ), K(λ); u = ψ_1..ψ_{V−1} (ψ_0 pinned: the global phase shift), n = V − 1. The level
+ * structure is that of the document's drawing (phase paths do not move it, so they meet no
+ * wall). F_u is the row Jacobian without the pinned column: symmetric (a weighted Laplacian
+ * block) when every edge has one length, not otherwise. F_λ is (∂F/∂α)·dα/dλ for α paths and
+ * Σ_{scaled terms} s·K_e⁰ sin φ_e for a weight scaling.
  */
 import type { ContinuationProblem } from '../continuation/types'
 import type { PatternModel } from '../pattern/model'
-import { phaseAlphaDerivative, phaseDifferences, phaseJacobian, phaseResidual } from '../pattern/phases'
+import { pinnedLevelJacobian } from '../pattern/phase-solve'
+import { phaseDifferences } from '../pattern/phases'
+import { levelAlphaDerivative, levelJacobian, levelResidual, modelLevels } from '../pattern/vertical-balance'
 import type { FamilyPath } from '../types/family'
-import { trailingBlock } from './reduce'
 
 /** α(λ), dα/dλ and K(λ), dK/dλ of a phase path. */
 export interface PhasePath {
@@ -60,23 +64,26 @@ function fullPsi(u: Float64Array, pinned: number): Float64Array {
 export function phaseProblem(m: PatternModel, path: PhasePath): { problem: ContinuationProblem; psiAt: (u: Float64Array) => Float64Array } {
   const V = m.nVertices, n = V - 1
   const pinned = m.psi[0]!
-  const G = new Float64Array(V)
+  const levels = modelLevels(m)
+  if (levels.components !== 1) throw new Error('families: phase paths need a connected pattern')
+  const column = Int32Array.from({ length: V }, (_, v) => v - 1)
+  const G = new Float64Array(n)
   const problem: ContinuationProblem = {
     n,
-    symmetric: true,
+    // one level: the rows are vertex sums (a Laplacian block); one unknown: 1 × 1
+    symmetric: levels.singleLevel || n <= 1,
     residual(u, l, out) {
-      phaseResidual(m, fullPsi(u, pinned), path.alpha(l), path.weights(l), G)
-      out.set(G.subarray(1))
+      levelResidual(m, levels, fullPsi(u, pinned), path.alpha(l), path.weights(l), out)
     },
     jacobian(u, l) {
       const psi = fullPsi(u, pinned), alpha = path.alpha(l), K = path.weights(l)
-      const Fu = trailingBlock(phaseJacobian(m, psi, alpha, K), 1)
-      const dA = phaseAlphaDerivative(m, psi, alpha, K)
+      const Fu = pinnedLevelJacobian(levelJacobian(m, levels, psi, alpha, K), column, n)
+      const dA = levelAlphaDerivative(m, levels, psi, alpha, K)
       const Flambda = new Float64Array(n)
-      for (let v = 1; v < V; v++) Flambda[v - 1] = dA[2 * v]! * path.dAlpha[0] + dA[2 * v + 1]! * path.dAlpha[1]
-      // weight scaling: ∂G/∂λ = Σ_e dK_e sin φ_e at the edge's ends (same signs as G)
-      phaseResidual(m, psi, alpha, path.dWeights, G)
-      for (let v = 1; v < V; v++) Flambda[v - 1]! += G[v]!
+      for (let i = 0; i < n; i++) Flambda[i] = dA[2 * i]! * path.dAlpha[0] + dA[2 * i + 1]! * path.dAlpha[1]
+      // weight scaling: ∂F/∂λ = the rows evaluated with the weights dK (F is linear in K)
+      levelResidual(m, levels, psi, alpha, path.dWeights, G)
+      for (let i = 0; i < n; i++) Flambda[i]! += G[i]!
       return { Fu, Flambda }
     },
     diagnostics(u, l) {

@@ -17,6 +17,7 @@ import { balanceJacobian, balanceResidual } from '../pattern/balance'
 import { edgeVectors, meanEdgeLength, minEdgeLength, totalLength } from '../pattern/geometry'
 import type { PatternModel } from '../pattern/model'
 import { drawingEvents, type DrawingAt } from './events'
+import { conditionEvents } from './walls'
 import { addTrailingBlock } from './reduce'
 import type { DrawingEventOptions } from './torus'
 
@@ -104,7 +105,7 @@ export function planeWingProblem(m: PatternModel, rotate: string[], compensate: 
       Flambda.set(colL.subarray(2), 0)
       return { Fu: b.build(), Flambda }
     },
-    events: drawingEvents(m, drawingAt, { ...ev, latticeMoves: false }),
+    events: [...drawingEvents(m, drawingAt, { ...ev, latticeMoves: false }), ...conditionEvents(m, drawingAt, { terminal: false, walls: false, planeRankTolerance: 1e-7 })],
     diagnostics(u, l) {
       const { p } = drawingAt(u, l)
       return { totalLength: totalLength(m, p, lat), minEdgeRatio: minEdgeLength(m, p, lat) / meanEdgeLength(m, p, lat), compensateAngle: u[n - 1]! }

@@ -10,6 +10,7 @@ import { balanceJacobian, balanceLatticeDerivative, balanceResidual } from '../p
 import { meanEdgeLength, minEdgeLength, totalLength } from '../pattern/geometry'
 import type { PatternModel } from '../pattern/model'
 import { drawingEvents, type DrawingAt } from './events'
+import { conditionEvents, trivialPhases } from './walls'
 import { latticeShapeArea, latticeTau, type LatticePath } from './lattice-paths'
 import { addTrailingBlock } from './reduce'
 
@@ -50,7 +51,7 @@ export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: Draw
       }
       return { Fu: b.build(), Flambda }
     },
-    events: drawingEvents(m, drawingAt, { ...ev, latticeMoves: true }),
+    events: [...drawingEvents(m, drawingAt, { ...ev, latticeMoves: true }), ...conditionEvents(m, drawingAt, { terminal: false, walls: !trivialPhases(m) })],
     diagnostics(u, l) {
       const { p, lattice } = drawingAt(u, l)
       const tau = latticeTau(lattice)

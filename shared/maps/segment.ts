@@ -30,6 +30,8 @@ export interface SegmentOptions {
 }
 
 const ENDING_EVENTS = new Set(['collapse', 'order flip', 'lattice degeneracy', 'fold'])
+/** Events of the published conditions, recorded as crossings (walls are drawn on τ maps; shared/families/walls.ts). */
+const CONDITION_EVENTS = new Set(['wall', 'vertex no longer ordinary', 'rank of M drops'])
 
 /**
  * Continue `slice` from (u0, λ0) through `targets` (monotone, all on one side of λ0 or equal to
@@ -67,7 +69,7 @@ export function runSegment(slice: PlaneSlice, u0: ArrayLike<number>, lambda0: nu
         }
       } else if (ENDING_EVENTS.has(sp.kind)) {
         return { points, crossings, endedBy: sp.kind, end: { lambda: sp.lambda, u: sp.u } }
-      } else if (sp.kind === 'rigidity loss' || sp.kind === 'branch point') {
+      } else if (sp.kind === 'rigidity loss' || sp.kind === 'branch point' || CONDITION_EVENTS.has(sp.kind)) {
         crossings.push({ kind: sp.kind, lambda: sp.lambda, u: sp.u })
       }
     }

@@ -10,7 +10,8 @@ import type { ContinuationProblem } from '../continuation/types'
 import { trailingBlock } from '../families/reduce'
 import { balanceJacobian, balanceResidual } from '../pattern/balance'
 import { compilePattern, type PatternModel } from '../pattern/model'
-import { phaseJacobian, phaseResidual } from '../pattern/phases'
+import { pinnedLevelJacobian } from '../pattern/phase-solve'
+import { levelJacobian, levelResidual, modelLevels } from '../pattern/vertical-balance'
 import { parseMapSettings, type MapCrossing, type MapSettings } from '../types/maps'
 import type { PatternDocument } from '../types/pattern'
 import { nullVectors, rigidityLossCurveProblem, type TwoParameterProblem } from './augmented'
@@ -67,11 +68,14 @@ export function planeTwoParameterProblem(m: PatternModel, s: MapSettings): TwoPa
       jacobianU: (u, a, b) => trailingBlock(balanceJacobian(m, full(u), at(a, b).lattice), 2),
     }
   }
+  // α plane: the level rows of vertical balance on cuts (the document's drawing fixes the levels)
   const psi = (u: Float64Array) => { const p = new Float64Array(V); p[0] = m.psi[0]!; p.set(u, 1); return p }
+  const levels = modelLevels(m)
+  const column = Int32Array.from({ length: V }, (_, v) => v - 1)
   return {
     n: V - 1,
-    residual: (u, a, b, out) => out.set(phaseResidual(m, psi(u), [a, b], m.weight).subarray(1)),
-    jacobianU: (u, a, b) => trailingBlock(phaseJacobian(m, psi(u), [a, b], m.weight), 1),
+    residual: (u, a, b, out) => { levelResidual(m, levels, psi(u), [a, b], m.weight, out) },
+    jacobianU: (u, a, b) => pinnedLevelJacobian(levelJacobian(m, levels, psi(u), [a, b], m.weight), column, V - 1),
   }
 }
 

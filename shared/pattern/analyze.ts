@@ -11,10 +11,16 @@ import { edgeLengths, meanEdgeLength, orderMargins } from './geometry'
 import { compilePattern, degree, type PatternModel } from './model'
 import { cycleSpaceBasis, spanningForest } from './operators'
 import { checkOrientability } from './orientability'
+import { existenceChecklist } from './existence'
 import { analyzePhaseRigidity, meanWeight } from './phase-solve'
-import { distanceToMirror, distanceToZeroMod2Pi, phaseDifferences, phaseResidual } from './phases'
-import type { PatternReport, PatternVerdicts, VerdictName } from './report'
+import { distanceToMirror, distanceToZeroMod2Pi, phaseDifferences } from './phases'
+import { analyzePlaneRigidity } from './plane-rigidity'
+import { VERTICAL_BALANCE_DEFINITION, type PatternReport, type PatternVerdicts, type VerdictName } from './report'
 import { analyzeRigidity } from './rigidity'
+import { checkStraightDrawing } from './straight-drawing'
+import { classifyVertices } from './vertex-towers'
+import { levelResidual, modelLevels, rowsDependingOnK } from './vertical-balance'
+import { wallReport } from './vertical-levels'
 import { cycleShifts, openFaces, sublatticeIndex } from './shifts'
 import { maxOf, minOf, norm2 } from './vector'
 
@@ -67,6 +73,9 @@ export function resolveAnalyzeOptions(o: AnalyzeOptions = {}): Required<AnalyzeO
 
 const DISCLAIMER = 'Numerical evidence in floating point, not a proof.'
 
+/** What K stands for, in one line (shown beside the K editor and in reports). */
+export const K_NOTE = 'K = 1 assumed (exact when symmetry equalises equal-length weights, as in the published examples): K_h stands for the product of the two wings\' undulation amplitudes times a factor from the towers\' offsets; only ratios of K among equal-length edges matter.'
+
 /** Analyses a parsed document (see `parsePatternDocument`). */
 export function analyzePattern(doc: PatternDocument, options?: AnalyzeOptions): PatternReport {
   const o = resolveAnalyzeOptions(options)
@@ -90,6 +99,38 @@ export function analyzePattern(doc: PatternDocument, options?: AnalyzeOptions): 
   const phi = phaseDifferences(m, m.psi, m.alpha)
   const keepsMirrorPlanes = Array.from(phi).every(x => distanceToMirror(x) <= o.mirrorTolerance)
   const failing = (Object.keys(verdicts) as VerdictName[]).filter(k => !verdicts[k].ok)
+  const drawing = checkStraightDrawing(m)
+  const drawingOk = drawing.ok && verdicts.cyclicOrder.ok && verdicts.edgeLengths.ok && verdicts.lattice.ok
+  const existence = existenceChecklist({
+    space: m.space,
+    connected: verdicts.connected.ok,
+    openWings: m.nWings,
+    loops: Array.from(m.edgeFrom).filter((v, e) => v === m.edgeTo[e]).length,
+    embeddingGenus: topology.embeddingGenus,
+    smallestFace: faces.cycles.reduce((a, c) => Math.min(a, c.length), Infinity),
+    minDegree: verdicts.degrees.degrees.reduce((a, d) => Math.min(a, d), Infinity),
+    orientable: verdicts.orientable.ok,
+    drawing: {
+      ok: drawingOk,
+      checked: drawing.checked || !drawingOk,
+      detail: [
+        drawing.coincidentVertices.length ? `coincident vertices ${drawing.coincidentVertices.map(([a, b]) => `${m.vertexIds[a]}=${m.vertexIds[b]}`).join(', ')}` : '',
+        drawing.crossings.length ? `crossing edges ${drawing.crossings.map(([a, b]) => `${m.edgeIds[a]}×${m.edgeIds[b]}`).join(', ')}` : '',
+        verdicts.cyclicOrder.ok ? '' : 'drawn order differs from σ',
+        verdicts.edgeLengths.ok ? '' : 'collapsed edge',
+        drawing.checked ? '' : 'crossings not tested above 400 edges',
+      ].filter(Boolean).join('; ') || 'no crossings, distinct points, order = σ',
+    },
+    balanced: verdicts.balance.ok,
+    rigid: verdicts.rigidity.ok,
+    ordinary: verdicts.ordinary.ok,
+    trivialPhases: keepsMirrorPlanes,
+    phaseClosure: verdicts.phaseClosure.ok,
+    verticallyBalanced: verdicts.phaseBalance.ok,
+    phaseRigid: verdicts.phaseRigidity.ok,
+    predictedGenus: topology.predictedGenus,
+    dependsOnK: verdicts.phaseBalance.dependsOnK,
+  })
   return {
     reportVersion: 1,
     name: doc.name,
@@ -119,6 +160,7 @@ export function analyzePattern(doc: PatternDocument, options?: AnalyzeOptions): 
       mirrorTolerance: o.mirrorTolerance,
     },
     tolerances: { ...o },
+    existence,
     disclaimer: DISCLAIMER,
   }
 }
@@ -190,6 +232,9 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
   const residualNorm = norm2(b)
   const rig = analyzeRigidity(m, p, lat, { tolerance: o.rigidityTolerance, maxDenseVertices: o.maxDenseVertices })
   const { weakestMode, rigid, ...rigNumbers } = rig
+  const towers = classifyVertices(m, p, lat)
+  const notable = towers.filter(t => t.kind !== 'ordinary' || t.nearKind)
+  const bad = towers.filter(t => t.kind !== 'ordinary')
   return {
     cyclicOrder: {
       ok: flipped.length === 0, minMargin: margins.length ? minOf(margins) : Math.PI, margins,
@@ -219,15 +264,43 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
         explanation: 'The unit vectors of the edges do not sum to zero at every vertex; run the balance solve.',
       } : {}),
     },
-    rigidity: {
+    rigidity: m.space === 'plane' ? planeRigidityVerdict(m, p, lat, o.rigidityTolerance) : {
       ...rigNumbers,
       ok: rigid === true,
       ...(rigid === false ? {
         witness: { kernelMode: weakestMode },
-        explanation: 'The drawing can be redrawn with every edge keeping its direction (a parallel redrawing), beyond translations'
-          + (m.space === 'plane' ? ' and dilation.' : '.'),
+        explanation: 'The drawing can be redrawn with every edge keeping its direction (a parallel redrawing), beyond translations.',
       } : {}),
     },
+    ordinary: {
+      ok: bad.length === 0,
+      kinds: towers.map(t => t.kind),
+      notable: notable.map(t => ({
+        vertex: m.vertexIds[t.vertex]!, degree: t.degree, kind: t.kind, largestGroup: t.largestGroup,
+        coinciding: t.coinciding.map(h => m.halfEdgeIds[h]!), ...(t.nearKind ? { nearKind: t.nearKind } : {}),
+      })),
+      tolerance: 1e-9,
+      nearTolerance: 1e-6,
+      ...(bad.length ? {
+        witness: { vertices: bad.map(t => m.vertexIds[t.vertex]!), halfEdges: bad.flatMap(t => t.coinciding.map(h => m.halfEdgeIds[h]!)) },
+        explanation: 'At some vertices too many wing lines coincide (degenerate or special), so no ordinary saddle tower fits there.',
+      } : {}),
+    },
+  }
+}
+
+/** The published plane rule: M = [ℓ̄·J | R] of rank 2V (Chen 2024, Def. 1). */
+function planeRigidityVerdict(m: PatternModel, p: Float64Array, lat: PatternModel['lattice'], tolerance: number): PatternVerdicts['rigidity'] {
+  const r = analyzePlaneRigidity(m, p, lat, tolerance)
+  const { witness, ...plane } = r
+  return {
+    method: r.method, trivialDimension: 2, dimension: r.rows, sigmaMin: r.sigma, lengthScale: r.lengthScale,
+    inertia: null, eigenvalues: [], tolerance, plane,
+    ok: r.rigid,
+    ...(witness ? {
+      witness: { kernelMode: witness },
+      explanation: 'A parallel redrawing moves no open wing\'s root sideways, so the balanced drawings cannot follow every change of the wing directions (M has rank below 2V).',
+    } : {}),
   }
 }
 
@@ -235,10 +308,21 @@ function phaseVerdicts(m: PatternModel, faces: Faces, o: Required<AnalyzeOptions
   const phi = phaseDifferences(m, m.psi, m.alpha)
   const defects = faces.cycles.map(c => distanceToZeroMod2Pi(c.reduce((s, h) => s + (h % 2 ? -phi[h >> 1]! : phi[h >> 1]!), 0)))
   const badFaces = defects.flatMap((d, f) => (d > o.mirrorTolerance ? [f] : []))
-  const g = phaseResidual(m, m.psi, m.alpha, m.weight)
+  const levels = modelLevels(m)
   const kBar = meanWeight(m.weight)
-  const gNorm = norm2(g) / kBar
-  const pr = analyzePhaseRigidity(m, m.psi, m.alpha, m.weight, o.phaseRigidityTolerance, o.maxDenseVertices)
+  const g = Array.from(levelResidual(m, levels, m.psi, m.alpha, m.weight), x => x / kBar)
+  const gNorm = norm2(Float64Array.from(g))
+  const dependent = new Set(rowsDependingOnK(m, levels, m.psi, m.alpha))
+  const lengths = edgeLengths(m, m.positions, m.lattice)
+  const walls = wallReport(m, lengths, levels)
+  const equations = levels.rows.map((r, i) => ({
+    level: r.level, length: levels.levels[r.level]!.length,
+    vertices: r.vertices.map(v => m.vertexIds[v]!),
+    terms: r.terms.map(t => ({ edge: m.edgeIds[t.edge]!, sign: t.sign })),
+    residual: g[i]!, dependsOnK: dependent.has(i),
+  }))
+  const failingRows = g.flatMap((x, i) => (Math.abs(x) > o.phaseTolerance / Math.sqrt(Math.max(1, g.length)) ? [i] : []))
+  const pr = analyzePhaseRigidity(m, m.psi, m.alpha, m.weight, o.phaseRigidityTolerance, o.maxDenseVertices, levels)
   const { weakestMode, rigid, ...prNumbers } = pr
   return {
     phaseClosure: {
@@ -249,10 +333,23 @@ function phaseVerdicts(m: PatternModel, faces: Faces, o: Required<AnalyzeOptions
       } : {}),
     },
     phaseBalance: {
-      ok: gNorm <= o.phaseTolerance, residualNorm: gNorm, residuals: Array.from(g), tolerance: o.phaseTolerance,
+      ok: gNorm <= o.phaseTolerance, definition: VERTICAL_BALANCE_DEFINITION, residualNorm: gNorm, residuals: g,
+      equations,
+      levels: levels.levels.map(l => ({ length: l.length, edges: l.edges.map(e => m.edgeIds[e]!), spread: l.spread })),
+      dependsOnK: dependent.size > 0,
+      kNote: K_NOTE,
+      nearWall: walls.nearWall
+        ? { pairs: walls.pairs.map(w => ({ edges: [m.edgeIds[w.edges[0]]!, m.edgeIds[w.edges[1]]!] as [string, string], relativeGap: w.relativeGap })) }
+        : null,
+      chainedTies: walls.chainedTies,
+      tolerance: o.phaseTolerance,
       ...(gNorm > o.phaseTolerance ? {
-        witness: { vertices: Array.from(g).flatMap((x, v) => (Math.abs(x) / kBar > o.phaseTolerance / Math.sqrt(m.nVertices) ? [m.vertexIds[v]!] : [])) },
-        explanation: 'The weighted sines of the phase differences do not cancel at every vertex; run the phase solve.',
+        witness: {
+          vertices: [...new Set(failingRows.flatMap(i => equations[i]!.vertices))],
+          edges: [...new Set(failingRows.flatMap(i => equations[i]!.terms.map(t => t.edge)))],
+          equations: failingRows,
+        },
+        explanation: 'On some cut the weighted sines of the phase differences of its shortest edges do not cancel; run the phase solve.',
       } : {}),
     },
     phaseRigidity: {

@@ -4,8 +4,11 @@
  * one-sentence `explanation` when it fails.
  */
 import type { Topology } from './combinatorics'
+import type { ExistenceChecklist } from './existence'
 import type { PhaseRigidityResult } from './phase-solve'
+import type { PlaneRigidityResult } from './plane-rigidity'
 import type { RigidityResult } from './rigidity'
+import type { VertexKind } from './vertex-towers'
 
 /** Fields shared by every verdict. */
 export interface VerdictBase {
@@ -85,10 +88,40 @@ export interface BalanceVerdict extends VerdictBase {
   witness?: { vertices: string[] }
 }
 
-/** The rigidity numbers (see `RigidityResult`) as a verdict, with the kernel mode as witness. */
+/**
+ * The rigidity numbers (see `RigidityResult`) as a verdict, with the kernel mode as witness.
+ * Torus: ker J = translations (unchanged). Plane: the published rule (`plane`, see
+ * plane-rigidity.ts) decides; `sigmaMin` is then σ_2V(M) and the witness a left null vector of M.
+ */
 export interface RigidityVerdict extends VerdictBase, Omit<RigidityResult, 'rigid' | 'weakestMode'> {
   /** The kernel mode (unit displacement per vertex) when not rigid. */
   witness?: { kernelMode: [number, number][] }
+  /** Plane patterns: M = [ℓ̄·J | R], its rank, σ_2V, dim D. */
+  plane?: Omit<PlaneRigidityResult, 'witness'>
+}
+
+/** One vertex that is not ordinary, or near a change of kind. */
+export interface VertexTowerEntry {
+  vertex: string
+  degree: number
+  kind: VertexKind
+  /** Size of the largest group of coinciding wing lines. */
+  largestGroup: number
+  /** The half-edges whose lines coincide. */
+  coinciding: string[]
+  /** The kind at 1e-6 rad, when it differs. */
+  nearKind?: VertexKind
+}
+
+/** Every vertex ordinary (a saddle tower, unique up to translation, fits there). */
+export interface OrdinaryVerdict extends VerdictBase {
+  /** Kind per vertex, in document order. */
+  kinds: VertexKind[]
+  /** The vertices that are not ordinary or are near a change. */
+  notable: VertexTowerEntry[]
+  tolerance: number
+  nearTolerance: number
+  witness?: { vertices: string[], halfEdges: string[] }
 }
 
 export interface PhaseClosureVerdict extends VerdictBase {
@@ -98,12 +131,47 @@ export interface PhaseClosureVerdict extends VerdictBase {
   witness?: { faces: number[] }
 }
 
+/** One equation of vertical balance on cuts: F_{X,t} = Σ sign·K sin φ over the level-t edges leaving X. */
+export interface VerticalEquation {
+  /** Index into `levels`. */
+  level: number
+  length: number
+  /** The vertex set X. */
+  vertices: string[]
+  terms: { edge: string, sign: 1 | -1 }[]
+  /** F_{X,t} / K̄ at the document's phases. */
+  residual: number
+  /** Two or more terms with non-zero sin φ: the verdict depends on the ratios of K. */
+  dependsOnK: boolean
+}
+
+/** Which vertical-balance definition a verdict was computed under. */
+export const VERTICAL_BALANCE_DEFINITION = 'cuts-v1' as const
+/** The definition before it was aligned with the papers: vertex sums over all edges. */
+export const EARLIER_VERTICAL_BALANCE_DEFINITION = 'vertex-sums' as const
+export type VerticalBalanceDefinition = typeof VERTICAL_BALANCE_DEFINITION | typeof EARLIER_VERTICAL_BALANCE_DEFINITION
+
 export interface PhaseBalanceVerdict extends VerdictBase {
-  /** ‖G‖₂ / K̄. */
+  definition: typeof VERTICAL_BALANCE_DEFINITION
+  /** ‖F‖₂ / K̄ over the level rows. */
   residualNorm: number
+  /** F / K̄ per equation. */
   residuals: number[]
+  /** The V − c equations, as sets of edges. */
+  equations: VerticalEquation[]
+  /** Length levels: the non-loop closed edges of each length. */
+  levels: { length: number, edges: string[], spread: number }[]
+  /** Some equation has ≥ 2 terms with |sin φ| > 1e-9. */
+  dependsOnK: boolean
+  /** One line on what K stands for. */
+  kNote: string
+  /** Set when the structure at the 1e-6 recheck differs: the close edge pairs and their relative gap. */
+  nearWall: { pairs: { edges: [string, string], relativeGap: number }[] } | null
+  /** Levels (indices) spreading over more than 1e-8 relative. */
+  chainedTies: number[]
   tolerance: number
-  witness?: { vertices: string[] }
+  /** The vertex sets and edges of the failing equations. */
+  witness?: { vertices: string[], edges: string[], equations: number[] }
 }
 
 /** The phase rigidity numbers (see `PhaseRigidityResult`) as a verdict. */
@@ -124,6 +192,7 @@ export interface PatternVerdicts {
   openWings: OpenWingVerdict
   balance: BalanceVerdict
   rigidity: RigidityVerdict
+  ordinary: OrdinaryVerdict
   phaseClosure: PhaseClosureVerdict
   phaseBalance: PhaseBalanceVerdict
   phaseRigidity: PhaseRigidityVerdict
@@ -172,6 +241,8 @@ export interface PatternReport {
   phases: PhaseSummary
   /** The tolerances and limits used (defaults filled in). */
   tolerances: Record<string, number>
+  /** The hypotheses of the published existence theorem, one by one. */
+  existence: ExistenceChecklist
   /** Reminder shown with every verdict. */
   disclaimer: string
 }

@@ -186,6 +186,8 @@ export interface MapSummary {
   workers: number | null
   verification: 'pending' | 'verified' | 'rejected'
   verificationReason: string | null
+  /** Definition of vertical balance the verification used ('cuts-v1'); null: the earlier vertex-sum definition. */
+  verticalBalance: string | null
   authorName: string | null
   createdAt: string
 }

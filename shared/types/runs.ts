@@ -147,6 +147,8 @@ export interface RunSummary {
   status: (typeof RUN_STATUSES)[number]
   verification: (typeof VERIFICATION_STATES)[number]
   verificationReason: string | null
+  /** Definition of vertical balance the verification used ('cuts-v1'); null: the earlier vertex-sum definition. */
+  verticalBalance: string | null
   pointCount: number
   specialCount: number
   authorId: number | null

@@ -8,7 +8,7 @@ import { diagnosticQuantity, lambdaQuantity, withUnit } from './units'
 
 /** What an export needs about the run. */
 export interface ExportRun {
-  summary: Pick<RunSummary, 'id' | 'name' | 'pathKind' | 'status' | 'verification' | 'verificationReason' | 'graphName' | 'graphVersion' | 'appVersion' | 'createdAt'>
+  summary: Pick<RunSummary, 'id' | 'name' | 'pathKind' | 'status' | 'verification' | 'verificationReason' | 'graphName' | 'graphVersion' | 'appVersion' | 'createdAt'> & Partial<Pick<RunSummary, 'verticalBalance'>>
   settings: unknown
   points: StoredRunPoint[]
   specialPoints: StoredRunPoint[]
@@ -67,7 +67,8 @@ export function buildRunJson(run: ExportRun) {
     name: run.summary.name,
     pattern: { name: run.summary.graphName, version: run.summary.graphVersion },
     status: run.summary.status,
-    verification: { state: run.summary.verification, reason: run.summary.verificationReason },
+    // verticalBalance: the definition the verdict used ('cuts-v1'); null = the earlier vertex-sum one
+    verification: { state: run.summary.verification, reason: run.summary.verificationReason, verticalBalance: run.summary.verticalBalance ?? null },
     lambda: lambdaQuantity(run.summary.pathKind),
     settings: run.settings,
     points: run.points.map(unpack),

@@ -32,9 +32,12 @@ export function verdictRows(r: PatternReport): VerdictRow[] {
     ['edgeLengths', 'edge lengths', `shortest ${fmt(v.edgeLengths.relativeMinLength)} of mean`],
     ['openWings', 'open wings sum to zero', r.summary.space === 'plane' ? `|Σ| ${fmt(v.openWings.norm)}` : 'none in the torus'],
     ['balance', 'balanced', `max residual ${fmt(v.balance.maxVertexResidual)}`],
-    ['rigidity', 'rigid', `σ_min ${fmt(v.rigidity.sigmaMin)} · inertia ${inertia ? `${inertia.negative}/${inertia.zero}/${inertia.positive}` : '—'} (${v.rigidity.method})`],
+    ['rigidity', 'rigid', v.rigidity.plane
+      ? `rank M ${v.rigidity.plane.rank} of ${v.rigidity.plane.rows} · σ_2V ${fmt(v.rigidity.plane.sigma)} · dim D ${v.rigidity.plane.familyDimension}`
+      : `σ_min ${fmt(v.rigidity.sigmaMin)} · inertia ${inertia ? `${inertia.negative}/${inertia.zero}/${inertia.positive}` : '—'} (${v.rigidity.method})`],
+    ['ordinary', 'every vertex ordinary', ordinaryDetail(r)],
     ['phaseClosure', 'phases close around faces', `max defect ${fmt(v.phaseClosure.maxDefect)}`],
-    ['phaseBalance', 'phases balanced', `residual ${fmt(v.phaseBalance.residualNorm)}`],
+    ['phaseBalance', 'vertically balanced on cuts', `${v.phaseBalance.equations.length} equation${v.phaseBalance.equations.length === 1 ? '' : 's'} · residual ${fmt(v.phaseBalance.residualNorm)}${v.phaseBalance.dependsOnK ? ' · depends on K' : ''}${v.phaseBalance.nearWall ? ' · near a wall' : ''}`],
     ['phaseRigidity', 'phase-rigid', `σ_min ${fmt(v.phaseRigidity.sigmaMin)} · inertia ${pInertia ? `${pInertia.negative}/${pInertia.zero}/${pInertia.positive}` : '—'}`],
   ]
   return rows.map(([name, label, detail]) => {
@@ -45,6 +48,13 @@ export function verdictRows(r: PatternReport): VerdictRow[] {
       hasWitness: !verdict.ok && (verdict.witness !== undefined || name === 'balance'),
     }
   })
+}
+
+/** Kinds of the vertices that are not ordinary, or near a change of kind. */
+function ordinaryDetail(r: PatternReport): string {
+  const n = r.verdicts.ordinary.notable
+  if (!n.length) return 'no coinciding wing lines'
+  return n.map(t => `${t.vertex} ${t.kind}${t.nearKind ? ` (near ${t.nearKind})` : ''}`).join(', ')
 }
 
 /** The topology line: genus of the embedding and predicted genus / ends of the glued surface. */

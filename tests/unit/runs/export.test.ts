@@ -5,6 +5,8 @@ import { describe, expect, it, vi } from 'vitest'
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
 vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
+vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
+vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
 import { FamilyRunner } from '../../../shared/families/runner'
 import { findPatternExample } from '../../../shared/examples'
 import { RESULT_CAUTION, RunPointSchema, RunSpecialPointSchema, type StoredRunPoint } from '../../../shared/types/runs'

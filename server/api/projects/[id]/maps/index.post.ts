@@ -1,6 +1,7 @@
 import { projectParamsSchema } from '#shared/types/projects'
 import { MapCreateSchema, type MapResult } from '#shared/types/maps'
 import { parsePatternDocument } from '#shared/types/pattern'
+import { VERTICAL_BALANCE_DEFINITION } from '#shared/pattern/report'
 
 /** Save a map computed in the browser (editor or owner); the server verifies a sample of cells. */
 export default defineEventHandler(async (event) => {
@@ -14,7 +15,7 @@ export default defineEventHandler(async (event) => {
   const [map] = await useDb().insert(tables.maps).values({
     projectId: id, graphVersionId: version.id, name: body.name, plane: body.settings.plane, settings: JSON.stringify(body.settings),
     result: JSON.stringify({ result, curves: body.curves }), cellCount: cells.length, solvedCount: cells.filter(c => c.status === 'solved').length,
-    wallMs: body.wallMs ?? null, workers: body.workers ?? null, verification: check.verification, verificationReason: check.reason,
+    wallMs: body.wallMs ?? null, workers: body.workers ?? null, verification: check.verification, verificationReason: check.reason, verticalBalance: VERTICAL_BALANCE_DEFINITION,
     appVersion: useRuntimeConfig().public.appVersion, authorId: user.id,
   }).returning()
   await logActivity({ projectId: id, actorId: user.id, verb: 'saved', objectType: 'map', objectId: map!.id, data: { name: body.name, plane: body.settings.plane } })
