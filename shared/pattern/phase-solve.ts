@@ -11,6 +11,8 @@ import { phaseJacobian, phaseResidual } from './phases'
 import { inertiaOf, reducedSpectrum, tripletsToDense, type Inertia } from './spectrum'
 import { norm2 } from './vector'
 import { sparseRigidity } from './rigidity-sparse'
+import { SparseSolver } from '../linalg/solver'
+import { TripletBuilder } from '../linalg/triplets'
 
 /** Options of the phase solve. */
 export interface PhaseSolveOptions {
@@ -45,6 +47,9 @@ export interface PhaseSolveResult {
   reason?: string
 }
 
+/** Vertices up to which a singular phase Jacobian falls back to the dense least-squares step. */
+const DENSE_FALLBACK_MAX_VERTICES = 800
+
 /** Solves G(ψ) = 0 from psi0 with α and the weights fixed. */
 export function solvePhases(
   m: PatternModel, psi0: Float64Array, alpha: readonly [number, number], weights: Float64Array,
@@ -54,10 +59,19 @@ export function solvePhases(
   const kBar = meanWeight(weights)
   const V = m.nVertices
   const embed = (x: Float64Array) => { const p = Float64Array.from(psi0); p.set(x, 1); return p }
+  // sparse LDLᵀ (LU when a pivot vanishes) of the pinned Jacobian; dense SVD only for small singular ones
+  const solver = new SparseSolver()
   const r = dampedNewton({
     x0: psi0.slice(1),
     residual: x => phaseResidual(m, embed(x), alpha, weights).slice(1),
-    jacobian: x => tripletsToDense(phaseJacobian(m, embed(x), alpha, weights)).subMatrix(1, V - 1, 1, V - 1),
+    step: (x, f) => {
+      const j = phaseJacobian(m, embed(x), alpha, weights)
+      const b = new TripletBuilder(V - 1, V - 1, j.count)
+      for (let k = 0; k < j.count; k++) if (j.rows[k]! > 0 && j.cols[k]! > 0) b.add(j.rows[k]! - 1, j.cols[k]! - 1, j.values[k]!)
+      const fac = solver.factor(b.build(), true)
+      return fac.ok ? fac.factor.solve(f.map(v => -v)) : null
+    },
+    ...(V <= DENSE_FALLBACK_MAX_VERTICES ? { jacobian: (x: Float64Array) => tripletsToDense(phaseJacobian(m, embed(x), alpha, weights)).subMatrix(1, V - 1, 1, V - 1) } : {}),
     norm: x => norm2(phaseResidual(m, embed(x), alpha, weights)) / kBar,
   }, o)
   return {
