@@ -26,14 +26,14 @@ export interface RigidityOptions {
   tolerance?: number
   /** 'auto' (default): dense up to `maxDenseVertices`, sparse above; or force one. */
   method?: 'auto' | 'dense' | 'sparse'
-  /** Above this vertex count 'auto' uses the sparse method (rigidity-sparse.ts). */
+  /** Above this vertex count 'auto' uses the sparse method (rigidity-sparse.ts); default 32 (faster from ~30, `npm run bench`). */
   maxDenseVertices?: number
 }
 
 export const DEFAULT_RIGIDITY_OPTIONS: Required<RigidityOptions> = {
   tolerance: 1e-7,
   method: 'auto',
-  maxDenseVertices: 400,
+  maxDenseVertices: 32,
 }
 
 /**
