@@ -9,6 +9,8 @@ import type { PatternModel } from '../pattern/model'
 import { phaseAlphaDerivative, phaseDifferences, phaseJacobian, phaseResidual } from '../pattern/phases'
 import type { FamilyPath } from '../types/family'
 import { trailingBlock } from './reduce'
+import { pinnedFirstVertexMargin } from './margin'
+import { meanWeight } from '../pattern/phase-solve'
 
 /** α(λ), dα/dλ and K(λ), dK/dλ of a phase path. */
 export interface PhasePath {
@@ -79,6 +81,8 @@ export function phaseProblem(m: PatternModel, path: PhasePath): { problem: Conti
       for (let v = 1; v < V; v++) Flambda[v - 1]! += G[v]!
       return { Fu, Flambda }
     },
+    // the phase verdict's dimensionless margin: σ_min of the phase Jacobian on non-constant ψ, ÷ K̄
+    rigidityMargin: pinnedFirstVertexMargin(V, 1, (_u, l) => 1 / meanWeight(path.weights(l))),
     diagnostics(u, l) {
       const phi = phaseDifferences(m, fullPsi(u, pinned), path.alpha(l))
       let minCos = Infinity

@@ -12,6 +12,7 @@ import type { PatternModel } from '../pattern/model'
 import { drawingEvents, type DrawingAt } from './events'
 import { latticeShapeArea, latticeTau, type LatticePath } from './lattice-paths'
 import { addTrailingBlock } from './reduce'
+import { pinnedFirstVertexMargin } from './margin'
 
 /** Event settings shared by the drawing families. */
 export interface DrawingEventOptions { collapseTolerance: number; orderFlip: boolean; terminal: boolean }
@@ -51,6 +52,8 @@ export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: Draw
       return { Fu: b.build(), Flambda }
     },
     events: drawingEvents(m, drawingAt, { ...ev, latticeMoves: true }),
+    // the rigidity verdict's dimensionless margin: σ_min of J on the complement of translations, × ℓ̄
+    rigidityMargin: pinnedFirstVertexMargin(V, 2, (u, l) => { const d = drawingAt(u, l); return meanEdgeLength(m, d.p, d.lattice) }),
     diagnostics(u, l) {
       const { p, lattice } = drawingAt(u, l)
       const tau = latticeTau(lattice)
