@@ -21,6 +21,7 @@
  */
 import type { Csc } from './csc'
 import { LdltFactor, LdltSymbolic, type LdltOutcome } from './ldlt'
+import { invertPermutation } from './ordering'
 
 /** Relaxed amalgamation thresholds: merged width ≤ n[i] allowed when the zero fraction < z[i]. */
 const RELAX_COLS = [4, 16, 48] as const
@@ -65,12 +66,18 @@ export class SupernodalSymbolic {
     const post = postorder(base.parent)
     const order = new Int32Array(n)
     for (let k = 0; k < n; k++) order[k] = perm[post[k]!]!
-    const sym = new LdltSymbolic(A, order)
+    // the postordered tree and column counts follow by renumbering (no second analysis)
+    const postInv = new Int32Array(n)
+    for (let k = 0; k < n; k++) postInv[post[k]!] = k
     this.perm = order
-    this.pinv = sym.pinv
-    const parent = sym.parent
+    this.pinv = invertPermutation(order)
+    const parent = new Int32Array(n)
     const cc = new Int32Array(n) // column counts of L without the diagonal
-    for (let j = 0; j < n; j++) cc[j] = sym.Lp[j + 1]! - sym.Lp[j]!
+    for (let k = 0; k < n; k++) {
+      const j = post[k]!, p = base.parent[j]!
+      parent[k] = p < 0 ? -1 : postInv[p]!
+      cc[k] = base.Lp[j + 1]! - base.Lp[j]!
+    }
     const childCount = new Int32Array(n)
     for (let j = 0; j < n; j++) if (parent[j]! >= 0) childCount[parent[j]!]!++
 
@@ -123,14 +130,19 @@ export class SupernodalSymbolic {
     for (let s = 0; s < ns; s++) { const p = parent[starts[s + 1]! - 1]!; sparent[s] = p < 0 ? -1 : snode[p]! }
     this.superParent = sparent
 
-    // lower pattern of PAPᵀ by columns (rows > column), from the strict upper pattern
-    const up = sym.upperPtr, ui = sym.upperIdx
+    // strict lower pattern of PAPᵀ ∪ (PAPᵀ)ᵀ by columns (rows > column, duplicates harmless)
+    const { colPtr: Ap0, rowIdx: Ai0 } = A
+    const pinv0 = this.pinv
     const lowCnt = new Int32Array(n + 1)
-    for (let p = 0; p < up[n]!; p++) lowCnt[ui[p]! + 1]!++
+    for (let jj = 0; jj < n; jj++) {
+      for (let p = Ap0[jj]!; p < Ap0[jj + 1]!; p++) { const a = pinv0[Ai0[p]!]!, b = pinv0[jj]!; if (a !== b) lowCnt[Math.min(a, b) + 1]!++ }
+    }
     for (let j = 0; j < n; j++) lowCnt[j + 1]! += lowCnt[j]!
-    const lowIdx = new Int32Array(up[n]!)
+    const lowIdx = new Int32Array(lowCnt[n]!)
     const nxt = lowCnt.slice(0, n)
-    for (let k = 0; k < n; k++) for (let p = up[k]!; p < up[k + 1]!; p++) lowIdx[nxt[ui[p]!]!++] = k
+    for (let jj = 0; jj < n; jj++) {
+      for (let p = Ap0[jj]!; p < Ap0[jj + 1]!; p++) { const a = pinv0[Ai0[p]!]!, b = pinv0[jj]!; if (a !== b) lowIdx[nxt[Math.min(a, b)]!++] = Math.max(a, b) }
+    }
 
     // row structure of each supernode: own columns ∪ A's lower rows ∪ children's rows beyond
     const childPtr = new Int32Array(ns + 1)
@@ -144,25 +156,25 @@ export class SupernodalSymbolic {
     const mark = new Int32Array(n).fill(-1)
     const rowPtr = new Int32Array(ns + 1)
     let rowsBuf = new Int32Array(Math.max(16, 4 * n))
-    const tmp: number[] = []
+    const tmp = new Int32Array(n)
     for (let s = 0; s < ns; s++) {
       const f = starts[s]!, l = starts[s + 1]! - 1
-      tmp.length = 0
+      let nt = 0
       for (let j = f; j <= l; j++) mark[j] = s
       for (let j = f; j <= l; j++) {
-        for (let p = lowCnt[j]!; p < lowCnt[j + 1]!; p++) { const i = lowIdx[p]!; if (i > l && mark[i] !== s) { mark[i] = s; tmp.push(i) } }
+        for (let p = lowCnt[j]!; p < lowCnt[j + 1]!; p++) { const i = lowIdx[p]!; if (i > l && mark[i] !== s) { mark[i] = s; tmp[nt++] = i } }
       }
       for (let q = childPtr[s]!; q < childPtr[s + 1]!; q++) {
         const c = childIdx[q]!
         const cnc = starts[c + 1]! - starts[c]!
-        for (let p = rowPtr[c]! + cnc; p < rowPtr[c + 1]!; p++) { const i = rowsBuf[p]!; if (i > l && mark[i] !== s) { mark[i] = s; tmp.push(i) } }
+        for (let p = rowPtr[c]! + cnc; p < rowPtr[c + 1]!; p++) { const i = rowsBuf[p]!; if (i > l && mark[i] !== s) { mark[i] = s; tmp[nt++] = i } }
       }
-      tmp.sort((a, b) => a - b)
-      const need = rowPtr[s]! + (l - f + 1) + tmp.length
+      const sorted = tmp.subarray(0, nt).sort()
+      const need = rowPtr[s]! + (l - f + 1) + nt
       if (need > rowsBuf.length) { const g = new Int32Array(Math.max(need, 2 * rowsBuf.length)); g.set(rowsBuf); rowsBuf = g }
       let w = rowPtr[s]!
       for (let j = f; j <= l; j++) rowsBuf[w++] = j
-      for (const i of tmp) rowsBuf[w++] = i
+      rowsBuf.set(sorted, w); w += nt
       rowPtr[s + 1] = w
     }
     this.rowPtr = rowPtr
