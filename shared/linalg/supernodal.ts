@@ -17,7 +17,8 @@
  * triangle, column-major) gets the supernode's columns of A and the children's update matrices
  * (extend-add); its nc pivot columns are factorised densely, and the trailing Schur complement
  * U −= L₂₁ D L₂₁ᵀ (a blocked rank-nc update on row-major copies, 2 × 2 register tiles) is handed
- * to the parent. The fronts live in one workspace reused from matrix to matrix.
+ * to the parent. The fronts live in one buffer and the pending update matrices on one stack
+ * (postorder makes them last-in first-out), both reused from matrix to matrix.
  */
 import type { Csc } from './csc'
 import { LdltFactor, LdltSymbolic, type LdltOutcome } from './ldlt'
@@ -56,6 +57,8 @@ export class SupernodalSymbolic {
   readonly flops: number
   private workspace?: Float64Array
   private readonly frontSize: number
+  private readonly stackSize: number
+  private stack?: Float64Array
 
   /** `A` may store the full symmetric pattern or one triangle; `perm` is the fill-reducing order. */
   constructor(A: Pick<Csc, 'nRows' | 'nCols' | 'colPtr' | 'rowIdx'>, perm: Int32Array) {
@@ -234,6 +237,14 @@ export class SupernodalSymbolic {
     let maxFront = 0
     for (let s = 0; s < ns; s++) maxFront = Math.max(maxFront, (rowPtr[s + 1]! - rowPtr[s]!) ** 2)
     this.frontSize = maxFront
+    // update matrices live on a stack (postorder: a supernode's children are the top entries)
+    let top = 0, peak = 0
+    const um = (x: number) => { const m = rowPtr[x + 1]! - rowPtr[x]! - (starts[x + 1]! - starts[x]!); return m * m }
+    for (let s = 0; s < ns; s++) {
+      for (let q = childPtr[s]!; q < childPtr[s + 1]!; q++) top -= um(childIdx[q]!)
+      if (sparent[s]! >= 0) { top += um(s); peak = Math.max(peak, top) }
+    }
+    this.stackSize = peak
   }
 
   /** @internal numeric factorisation; see {@link supernodalFactor}. */
@@ -243,6 +254,9 @@ export class SupernodalSymbolic {
 
   /** @internal one front buffer (the largest front), reused by every factorisation. */
   frontBuffer(): Float64Array { return (this.workspace ??= new Float64Array(this.frontSize)) }
+
+  /** @internal the stack of update matrices, reused by every factorisation. */
+  updateStack(): Float64Array { return (this.stack ??= new Float64Array(this.stackSize)) }
 }
 
 /** Postorder of a forest given by parent[] (children visited in increasing order). */
@@ -284,8 +298,10 @@ function numeric(
   for (let j = 0; j < n; j++) Lp[j + 1]! += Lp[j]!
   const Li = new Int32Array(Lp[n]!)
   const Lx = new Float64Array(Lp[n]!)
-  // pending update matrices of children, keyed by supernode (freed once the parent consumed them)
-  const update: (Float64Array | undefined)[] = new Array(ns)
+  // pending update matrices of children on a stack: offset of each supernode's, and the top
+  const stack = S.updateStack()
+  const offset = new Int32Array(ns)
+  let top = 0
   let W = new Float64Array(64), V = new Float64Array(64)
   const { childPtr: childStart, childIdx: childList } = S
 
@@ -295,19 +311,19 @@ function numeric(
     const F = work.subarray(0, nr * nr)
     F.fill(0)
     for (let q = aPtr[s]!; q < aPtr[s + 1]!; q++) F[aPos[q]!]! += Ax[aEntry[q]!]!
-    // extend-add of the children's update matrices
+    // extend-add of the children's update matrices (the top of the stack), then pop them
     for (let q = childStart[s]!; q < childStart[s + 1]!; q++) {
       const c = childList[q]!
-      const U = update[c]!
-      update[c] = undefined
+      const u0 = offset[c]!
       const cnc = superStart[c + 1]! - superStart[c]!
       const cr = rowPtr[c]! + cnc
       const cm = rowPtr[c + 1]! - cr
       for (let b = 0; b < cm; b++) {
         const col = relPos[cr + b]! * nr
-        const ub = b * cm
-        for (let a = b; a < cm; a++) F[relPos[cr + a]! + col]! += U[a + ub]!
+        const ub = u0 + b * cm
+        for (let a = b; a < cm; a++) F[relPos[cr + a]! + col]! += stack[a + ub]!
       }
+      if (q === childStart[s]) top = u0
     }
     // dense LDLᵀ of the nc pivot columns (right-looking inside the panel)
     for (let k = 0; k < nc; k++) {
@@ -319,7 +335,7 @@ function numeric(
         const ljk = F[kk + j]! / d
         if (ljk === 0) continue
         const jj = j * nr
-        for (let i = j; i < nr; i++) F[jj + i]! -= F[kk + i]! * ljk * 1
+        for (let i = j; i < nr; i++) F[jj + i]! -= F[kk + i]! * ljk
       }
       for (let i = k + 1; i < nr; i++) F[kk + i]! /= d
     }
@@ -329,20 +345,21 @@ function numeric(
       const kk = k * nr
       for (let i = k + 1; i < nr; i++) { Li[w] = rows[r0 + i]!; Lx[w++] = F[kk + i]! }
     }
-    if (m === 0) continue
+    if (m === 0 || superParent[s]! < 0) continue
     // Schur complement U = F₂₂ − L₂₁ D L₂₁ᵀ on row-major copies (W = L₂₁ D, V = L₂₁)
     if (W.length < m * nc) { W = new Float64Array(2 * m * nc); V = new Float64Array(2 * m * nc) }
     for (let k = 0; k < nc; k++) {
       const kk = k * nr, dk = D[f + k]!
       for (let i = 0; i < m; i++) { const l = F[kk + nc + i]!; V[i * nc + k] = l; W[i * nc + k] = l * dk }
     }
-    const U = new Float64Array(m * m)
+    offset[s] = top
+    const U = stack.subarray(top, top + m * m)
+    top += m * m
     for (let b = 0; b < m; b++) {
       const src = (nc + b) * nr + nc
       for (let a = b; a < m; a++) U[a + b * m] = F[src + a]!
     }
     schurUpdate(U, m, W, V, nc)
-    if (superParent[s]! >= 0) update[s] = U
   }
   return { ok: true, factor: new LdltFactor(S, Li, Lx, D, Lp) }
 }
