@@ -24,6 +24,9 @@ import type { Csc } from './csc'
 import { LdltFactor, LdltSymbolic, type LdltOutcome } from './ldlt'
 import { invertPermutation } from './ordering'
 
+/** Pivot columns factorised one by one before a tiled update of the panel's later columns. */
+const PANEL_BLOCK = 16
+
 /** Relaxed amalgamation thresholds: merged width ≤ n[i] allowed when the zero fraction < z[i]. */
 const RELAX_COLS = [4, 16, 48] as const
 const RELAX_ZEROS = [0.8, 0.1, 0.05] as const
@@ -325,19 +328,34 @@ function numeric(
       }
       if (q === childStart[s]) top = u0
     }
-    // dense LDLᵀ of the nc pivot columns (right-looking inside the panel)
-    for (let k = 0; k < nc; k++) {
-      const kk = k * nr
-      const d = F[kk + k]!
-      if (d === 0 || !Number.isFinite(d)) return { ok: false, reason: `zero pivot at step ${f + k} (row ${S.perm[f + k]})`, pivot: f + k }
-      D[f + k] = d
-      for (let j = k + 1; j < nc; j++) {
-        const ljk = F[kk + j]! / d
-        if (ljk === 0) continue
-        const jj = j * nr
-        for (let i = j; i < nr; i++) F[jj + i]! -= F[kk + i]! * ljk
+    // dense LDLᵀ of the nc pivot columns, in column blocks of PANEL_BLOCK: right-looking inside
+    // a block, then one tiled rank-bs update of the panel's later columns
+    for (let j0 = 0; j0 < nc; j0 += PANEL_BLOCK) {
+      const j1 = Math.min(nc, j0 + PANEL_BLOCK)
+      for (let k = j0; k < j1; k++) {
+        const kk = k * nr
+        const d = F[kk + k]!
+        if (d === 0 || !Number.isFinite(d)) return { ok: false, reason: `zero pivot at step ${f + k} (row ${S.perm[f + k]})`, pivot: f + k }
+        D[f + k] = d
+        for (let j = k + 1; j < j1; j++) {
+          const ljk = F[kk + j]! / d
+          if (ljk === 0) continue
+          const jj = j * nr
+          for (let i = j; i < nr; i++) F[jj + i]! -= F[kk + i]! * ljk
+        }
+        for (let i = k + 1; i < nr; i++) F[kk + i]! /= d
       }
-      for (let i = k + 1; i < nr; i++) F[kk + i]! /= d
+      if (j1 < nc) {
+        const bs = j1 - j0, rowsBelow = nr - j1
+        if (W.length < rowsBelow * bs) { W = new Float64Array(2 * rowsBelow * bs); V = new Float64Array(2 * rowsBelow * bs) }
+        for (let k = 0; k < bs; k++) {
+          const kk = (j0 + k) * nr, dk = D[f + j0 + k]!
+          for (let i = 0; i < rowsBelow; i++) { const l = F[kk + j1 + i]!; V[i * bs + k] = l; W[i * bs + k] = l * dk }
+        }
+        // columns j1..nc-1 of the front, rows from the diagonal down: the same kernel on the
+        // sub-front starting at (j1, j1), restricted to its first nc − j1 columns
+        schurUpdate(F, rowsBelow, W, V, bs, nr, j1 * nr + j1, nc - j1)
+      }
     }
     // copy L's columns out
     for (let k = 0; k < nc; k++) {
@@ -359,25 +377,28 @@ function numeric(
       const src = (nc + b) * nr + nc
       for (let a = b; a < m; a++) U[a + b * m] = F[src + a]!
     }
-    schurUpdate(U, m, W, V, nc)
+    schurUpdate(U, m, W, V, nc, m, 0, m)
   }
   return { ok: true, factor: new LdltFactor(S, Li, Lx, D, Lp) }
 }
 
-/** U (m × m lower, column-major) −= W Vᵀ with W, V row-major m × nc; 2 × 2 tiles. */
-function schurUpdate(U: Float64Array, m: number, W: Float64Array, V: Float64Array, nc: number): void {
+/**
+ * Lower part of the first `cols` columns of U −= W Vᵀ, with U the m × m block at `u0` of a
+ * column-major array with leading dimension `ld`, and W, V row-major m × nc; 2 × 2 tiles.
+ */
+function schurUpdate(U: Float64Array, m: number, W: Float64Array, V: Float64Array, nc: number, ld: number, u0: number, cols: number): void {
   let b = 0
-  for (; b + 1 < m; b += 2) {
+  for (; b + 1 < cols; b += 2) {
     const vb0 = b * nc, vb1 = vb0 + nc
-    // diagonal tile rows b, b+1
+    const c0 = u0 + b * ld, c1 = c0 + ld
     {
       let s00 = 0, s10 = 0, s11 = 0
-      const wa0 = b * nc, wa1 = wa0 + nc
+      const wa1 = vb1
       for (let k = 0; k < nc; k++) {
         const v0 = V[vb0 + k]!, v1 = V[vb1 + k]!
-        s00 += W[wa0 + k]! * v0; s10 += W[wa1 + k]! * v0; s11 += W[wa1 + k]! * v1
+        s00 += W[vb0 + k]! * v0; s10 += W[wa1 + k]! * v0; s11 += W[wa1 + k]! * v1
       }
-      U[b + b * m]! -= s00; U[b + 1 + b * m]! -= s10; U[b + 1 + (b + 1) * m]! -= s11
+      U[c0 + b]! -= s00; U[c0 + b + 1]! -= s10; U[c1 + b + 1]! -= s11
     }
     let a = b + 2
     for (; a + 1 < m; a += 2) {
@@ -387,20 +408,30 @@ function schurUpdate(U: Float64Array, m: number, W: Float64Array, V: Float64Arra
         const v0 = V[vb0 + k]!, v1 = V[vb1 + k]!, w0 = W[wa0 + k]!, w1 = W[wa1 + k]!
         s00 += w0 * v0; s10 += w1 * v0; s01 += w0 * v1; s11 += w1 * v1
       }
-      U[a + b * m]! -= s00; U[a + 1 + b * m]! -= s10; U[a + (b + 1) * m]! -= s01; U[a + 1 + (b + 1) * m]! -= s11
+      U[c0 + a]! -= s00; U[c0 + a + 1]! -= s10; U[c1 + a]! -= s01; U[c1 + a + 1]! -= s11
     }
     if (a < m) {
       const wa0 = a * nc
       let s00 = 0, s01 = 0
       for (let k = 0; k < nc; k++) { const w0 = W[wa0 + k]!; s00 += w0 * V[vb0 + k]!; s01 += w0 * V[vb1 + k]! }
-      U[a + b * m]! -= s00; U[a + (b + 1) * m]! -= s01
+      U[c0 + a]! -= s00; U[c1 + a]! -= s01
     }
   }
-  if (b < m) {
-    const vb0 = b * nc
-    let s = 0
-    for (let k = 0; k < nc; k++) s += W[vb0 + k]! * V[vb0 + k]!
-    U[b + b * m]! -= s
+  if (b < cols) {
+    const vb0 = b * nc, c0 = u0 + b * ld
+    let a = b
+    for (; a + 1 < m; a += 2) {
+      const wa0 = a * nc, wa1 = wa0 + nc
+      let s0 = 0, s1 = 0
+      for (let k = 0; k < nc; k++) { const v0 = V[vb0 + k]!; s0 += W[wa0 + k]! * v0; s1 += W[wa1 + k]! * v0 }
+      U[c0 + a]! -= s0; U[c0 + a + 1]! -= s1
+    }
+    if (a < m) {
+      const wa0 = a * nc
+      let s0 = 0
+      for (let k = 0; k < nc; k++) s0 += W[wa0 + k]! * V[vb0 + k]!
+      U[c0 + a]! -= s0
+    }
   }
 }
 
