@@ -83,7 +83,7 @@ export function solvePhases(
 /** Phase rigidity of ψ: dimensionless σ_min, inertia, the weakest phase mode. */
 export interface PhaseRigidityResult {
   method: 'dense' | 'sparse'
-  /** Set when the sparse inverse iteration did not settle. */
+  /** Set when the sparse Lanczos iteration did not settle. */
   reason?: string
   dimension: number
   sigmaMin: number | null
@@ -96,7 +96,7 @@ export interface PhaseRigidityResult {
   tolerance: number
 }
 
-/** Phase rigidity: dense reduced spectrum up to maxDenseVertices, sparse LDLᵀ + inverse iteration above. */
+/** Phase rigidity: dense reduced spectrum up to maxDenseVertices, sparse LDLᵀ + Lanczos above. */
 export function analyzePhaseRigidity(
   m: PatternModel, psi: Float64Array, alpha: readonly [number, number], weights: Float64Array,
   tolerance: number, maxDenseVertices: number,
@@ -108,7 +108,7 @@ export function analyzePhaseRigidity(
     return {
       method: 'sparse', dimension: s.dimension, sigmaMin, inertia: s.inertia, eigenvalues: [],
       rigid: sigmaMin > tolerance, weakestMode: Array.from(s.mode), tolerance,
-      ...(s.converged ? {} : { reason: `inverse iteration did not settle in ${s.iterations} steps` }),
+      ...(s.converged ? {} : { reason: `Lanczos on the inverse did not settle in ${s.iterations} solves` }),
     }
   }
   const s = reducedSpectrum(phaseJacobian(m, psi, alpha, weights), [new Float64Array(m.nVertices).fill(1)])
