@@ -10,8 +10,10 @@
  * own (a parallel redrawing): F_u is singular for m > 1 and their lattice families cannot be
  * continued. The lattice section therefore shears supercells of the degree-6 demo net
  * "six-wing-lattice", which stay rigid (tests/unit/pattern/rigidity-sparse.test.ts).
- * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k); ends with the surface
- * section of ./surface.ts (alone: npx tsx bench/surface.ts)
+ * Then the research-scale section (bench/scale.ts): factorisation beside SuperLU, balance solve,
+ * rigidity check at V = 1k, 10k (and 20k for the factorisation).
+ * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k and the V = 20k factorisation)
+ * Ends with the surface (bench/surface.ts) and certificate (bench/certify.ts) sections.
  */
 import { performance } from 'node:perf_hooks'
 import { createContinuation } from '../shared/continuation/engine'
@@ -19,6 +21,8 @@ import { findPatternExample } from '../shared/examples'
 import { familyProblem, setupFamily } from '../shared/families/build'
 import { compilePattern } from '../shared/pattern/model'
 import { SparseSolver } from '../shared/linalg/solver'
+import { LdltFactor } from '../shared/linalg/ldlt'
+import { balanceSection, factorisationSection, rigiditySection } from './scale'
 import { parseFamilySettings } from '../shared/types/family'
 import { supercell } from '../shared/pattern/supercell'
 import type { PatternDocument } from '../shared/types/pattern'
@@ -60,7 +64,9 @@ function twistedSupercell(cell: PatternDocument, m: number): PatternDocument {
  * Counts the factorisations made inside the timed steps and their time, by wrapping
  * SparseSolver.prototype.factor (bench only): shows how much of a step is factorisation.
  */
-const inStep = { calls: 0, ms: 0 }
+const inStep = { calls: 0, ms: 0, solves: 0 }
+const ldltSolve = LdltFactor.prototype.solve
+LdltFactor.prototype.solve = function (this: LdltFactor, ...args: Parameters<typeof ldltSolve>) { inStep.solves++; return ldltSolve.apply(this, args) }
 const factor = SparseSolver.prototype.factor
 SparseSolver.prototype.factor = function (this: SparseSolver, ...args: Parameters<typeof factor>) {
   const t0 = performance.now()
@@ -109,7 +115,7 @@ function measure(c: Case, method: 'auto' | 'dense', steps: number, chordNewton =
   const run = createContinuation(problem, { u: u0, lambda: l0 }, { initialStep: c.step, maxStep: c.step, solver: { method }, chordNewton, fastIterations: chordNewton ? 6 : 3 })
   if (!run.started) throw new Error(`start refused: ${run.finishReason}`)
   const times: number[] = []
-  inStep.calls = 0; inStep.ms = 0
+  inStep.calls = 0; inStep.ms = 0; inStep.solves = 0
   for (let s = 0; s < steps && !run.done; s++) {
     const t0 = performance.now()
     const o = run.next()
@@ -119,14 +125,16 @@ function measure(c: Case, method: 'auto' | 'dense', steps: number, chordNewton =
   times.sort((a, b) => a - b)
   const stepMs = times[Math.floor(times.length / 2)]!
   const total = times.reduce((a, b) => a + b, 0)
-  return { V: model.nVertices, n: problem.n, factorMs, stepMs, perStep: inStep.calls / times.length, share: inStep.ms / total, newton: run.points.slice(1).map(p => p.newtonIterations).join(',') }
+  return { V: model.nVertices, n: problem.n, factorMs, stepMs, perStep: inStep.calls / times.length, solves: inStep.solves / times.length, share: inStep.ms / total, newton: run.points.slice(1).map(p => p.newtonIterations).join(',') }
 }
 
 const f = (x: number, w = 10) => x.toFixed(1).padStart(w)
 console.log(`Wingfold family continuation bench: α1 phase path on m×m supercells of "square-pair" (replicated phases, seeded weights), arclength step ${STEP}`)
 console.log('step = one accepted pseudo-arclength step (predictor, Newton corrector, tangent, σ_min estimate, test functions, diagnostics), median of 5')
 console.log('factorisation = one numeric LDLᵀ of F_u (ordering and symbolic analysis done once before), best of 3\n')
-console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   factorisations/step  in factorisation   Newton iterations')
+const HEAD = '      V       n   factor ms    step ms   step/factor  (target ≤ 2)   factorisations/step  in factorisation   solves/step   Newton iterations'
+console.log('solves/step = solves with a factor of F_u: Newton updates, F_u⁻¹F_λ, the σ_min monitor (the tangent needs none); before this version: one more F_u⁻¹F_λ and the tangent solve')
+console.log(HEAD)
 measure(phaseCase(22), 'auto', 5, true) // warm-up (JIT), not printed
 const sparse: ReturnType<typeof measure>[] = []
 for (const chord of [true, false]) {
@@ -135,7 +143,7 @@ for (const chord of [true, false]) {
     const r = measure(phaseCase(m), 'auto', 5, chord)
     if (chord) sparse.push(r)
     const ratio = r.stepMs / r.factorMs
-    console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.newton}`)
+    console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.solves.toFixed(1).padStart(11)}   ${r.newton}`)
   }
 }
 const first = sparse[0]!, last = sparse.at(-1)!
@@ -153,16 +161,22 @@ for (const m of quick ? [22] : [22, 32]) {
 }
 
 console.log('\nlattice family: shear of m×m supercells of "six-wing-lattice" (rigid for every m; n = 2V − 2 positions), arclength step 0.02, chord (default)')
-console.log('      V       n   factor ms    step ms   step/factor  (target ≤ 2)   factorisations/step  in factorisation   Newton iterations')
+console.log(HEAD)
 const shear: ReturnType<typeof measure>[] = []
 for (const m of [32, 71, 100]) {
   const r = measure(shearCase(m), 'auto', 5, true)
   shear.push(r)
   const ratio = r.stepMs / r.factorMs
-  console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.newton}`)
+  console.log(`${String(r.V).padStart(7)} ${String(r.n).padStart(7)} ${f(r.factorMs, 11)} ${f(r.stepMs)} ${ratio.toFixed(2).padStart(13)}  ${ratio <= 2 ? 'met   ' : 'MISSED'}   ${r.perStep.toFixed(1).padStart(8)} ${(100 * r.share).toFixed(0).padStart(9)} %   ${r.solves.toFixed(1).padStart(11)}   ${r.newton}`)
 }
 const shearExp = Math.log(shear[2]!.stepMs / shear[0]!.stepMs) / Math.log(shear[2]!.V / shear[0]!.V)
 console.log(`growth exponent of the shear step time, V = ${shear[0]!.V} → ${shear[2]!.V}: ${shearExp.toFixed(2)}  (target ≤ 1.3: ${shearExp <= 1.3 ? 'met' : 'MISSED'})`)
+
+console.log('\n— research scale —')
+factorisationSection(quick ? [100] : [100, 141], 3)
+balanceSection([32, 100], 12, 3)
+rigiditySection([32, 100], [4, 6, 10], 3)
+
 await import('./surface')
 
 // interval certificates by size (bench/certify.ts)

@@ -1,16 +1,10 @@
 /**
- * ECharts through vue-echarts, registered globally as <VChart> on the client only, with just
- * the parts Wingfold draws (tree-shaken: canvas renderer, line / scatter / bar series, grid,
- * tooltip, legend, data zoom, mark lines and points for special points; custom series and the
- * visual map for the moduli maps).
+ * <VChart> on the client only, as an async component: ECharts and vue-echarts (app/lib/echarts.ts,
+ * about 0.9 MB) load the first time a page renders a chart, not with every page (sign-in and the
+ * project list stay light; measured in tests/e2e/first-load.test.ts).
  */
-import { use } from 'echarts/core'
-import { CanvasRenderer } from 'echarts/renderers'
-import { BarChart, CustomChart, LineChart, ScatterChart } from 'echarts/charts'
-import { DataZoomComponent, GridComponent, LegendComponent, MarkLineComponent, MarkPointComponent, TooltipComponent, VisualMapComponent } from 'echarts/components'
-import VChart from 'vue-echarts'
+import { defineAsyncComponent } from 'vue'
 
 export default defineNuxtPlugin((nuxtApp) => {
-  use([CanvasRenderer, BarChart, CustomChart, LineChart, ScatterChart, DataZoomComponent, GridComponent, LegendComponent, MarkLineComponent, MarkPointComponent, TooltipComponent, VisualMapComponent])
-  nuxtApp.vueApp.component('VChart', VChart)
+  nuxtApp.vueApp.component('VChart', defineAsyncComponent(() => import('../lib/echarts').then(m => m.default)))
 })

@@ -8,7 +8,7 @@
  */
 import type { BorderedMatrix, BorderedSolver } from './bordered'
 import { jacobianAt } from './corrector'
-import { estimateSigmaMin } from './sigma-min'
+import { estimateRigidityMargin, estimateSigmaMin } from './sigma-min'
 import type { ContinuationProblem, TestValues } from './types'
 import { norm2 } from './vectors'
 
@@ -22,12 +22,15 @@ export interface PointAnalysis {
   sigma?: number
   /** Approximate null vector of F_u (from the σ_min iteration). */
   sigmaVector?: Float64Array
+  /** With the problem's rigidity margin: its weakest mode in full coordinates (next point's warm start). */
+  marginVector?: Float64Array
   M: BorderedMatrix
 }
 
 /**
  * Analyse the corrected point y with previous direction c. `warm`: the previous point's σ_min
- * vector; from it ⌈sigmaIterations/2⌉ inverse iterations are made instead of sigmaIterations.
+ * vector (its margin vector with a rigidity margin); from it ⌈sigmaIterations/2⌉ inverse
+ * iterations are made instead of sigmaIterations.
  */
 export function analysePoint(problem: ContinuationProblem, solver: BorderedSolver, y: Float64Array, c: Float64Array, sigmaIterations: number, warm?: Float64Array):
   { ok: true; a: PointAnalysis } | { ok: false; reason: string } {
@@ -47,11 +50,16 @@ export function analysePoint(problem: ContinuationProblem, solver: BorderedSolve
     events: (problem.events ?? []).map((e) => e.fn(u, y[n]!)),
   }
   if (problem.symmetric && M.fu.ok && M.fu.inertia) tests.negativeEigenvalues = M.fu.inertia.negative
-  let sigma: number | undefined, sigmaVector: Float64Array | undefined
+  let sigma: number | undefined, sigmaVector: Float64Array | undefined, marginVector: Float64Array | undefined
   if (problem.sigmaMin !== false) {
     const iterations = warm ? Math.ceil(sigmaIterations / 2) : sigmaIterations
-    if (M.fu.ok) ({ sigma, vector: sigmaVector } = estimateSigmaMin(M.fu.factor, problem.symmetric === true, iterations, warm))
-    else sigma = 0
+    const margin = problem.rigidityMargin
+    if (!M.fu.ok) sigma = 0
+    else if (margin) ({ sigma, vector: marginVector, reduced: sigmaVector } = estimateRigidityMargin(M.fu.factor, margin, margin.scale(u, y[n]!), iterations, warm))
+    else {
+      ({ sigma, vector: sigmaVector } = estimateSigmaMin(M.fu.factor, problem.symmetric === true, iterations, warm))
+      if (problem.sigmaScale) sigma *= problem.sigmaScale(u, y[n]!)
+    }
   }
-  return { ok: true, a: { y, t, tests, detLogAbs: det?.logAbs ?? NaN, sigma, sigmaVector, M } }
+  return { ok: true, a: { y, t, tests, detLogAbs: det?.logAbs ?? NaN, sigma, sigmaVector, ...(marginVector ? { marginVector } : {}), M } }
 }

@@ -63,23 +63,38 @@ export class BorderedMatrix {
   private denom = NaN
   private full?: FactorOutcome
   private readonly scale: number
+  private readonly baseScale: number
 
-  constructor(private readonly owner: BorderedSolver, readonly J: PointJacobian, readonly c: Float64Array, readonly fu: FactorOutcome) {
-    this.scale = Math.max(normInf(J.Fu.values.subarray(0, J.Fu.count)), normInf(J.Flambda), normInf(c))
+  /** `x2` = F_u⁻¹F_λ when already known (it does not depend on c). */
+  constructor(private readonly owner: BorderedSolver, readonly J: PointJacobian, readonly c: Float64Array, readonly fu: FactorOutcome, x2?: Float64Array, baseScale?: number) {
+    this.baseScale = baseScale ?? Math.max(normInf(J.Fu.values.subarray(0, J.Fu.count)), normInf(J.Flambda))
+    this.scale = Math.max(this.baseScale, normInf(c))
     if (fu.ok) {
       const n = owner.n
-      this.x2 = fu.factor.solve(J.Flambda)
+      if (x2) this.x2 = x2
+      else this.x2 = fu.factor.solve(J.Flambda)
       let d = c[n]!
       for (let i = 0; i < n; i++) d -= c[i]! * this.x2[i]!
       this.denom = d
     }
   }
 
+  /**
+   * The same J with another last row c (the chord corrector at the next step): F_u, its
+   * factorisation and F_u⁻¹F_λ are reused, only the scalar Schur complement is new.
+   */
+  withBorder(c: Float64Array): BorderedMatrix {
+    return new BorderedMatrix(this.owner, this.J, c, this.fu, this.x2, this.baseScale)
+  }
+
   /** Solve M x = (f, g). */
   solve(f: ArrayLike<number>, g: number): BorderedSolve {
     const n = this.owner.n
     if (this.fu.ok && this.denom !== 0 && Number.isFinite(this.denom)) {
-      const x1 = this.fu.factor.solve(f)
+      // f = 0 (the tangent system) needs no solve: x₁ = 0
+      let zero = true
+      for (let i = 0; i < n && zero; i++) if (f[i] !== 0) zero = false
+      const x1 = zero ? new Float64Array(n) : this.fu.factor.solve(f)
       let s = g
       for (let i = 0; i < n; i++) s -= this.c[i]! * x1[i]!
       s /= this.denom

@@ -177,11 +177,11 @@ export class Continuation {
     // Chord: first with F_u as factorised at the previous point (no new factorisation); where that
     // does not converge (e.g. an edge about to collapse makes F_u change fast), full Newton.
     let r = o.chordNewton && a0.M.fu.ok
-      ? correct(problem, solver, guess, c, target, this.ctx.corrector, solver.prepare(a0.M.J, c, a0.M.fu))
+      ? correct(problem, solver, guess, c, target, this.ctx.corrector, a0.M.withBorder(c))
       : undefined
     if (!r?.converged) r = correct(problem, solver, guess, c, target, r ? this.fullNewton : this.ctx.corrector)
     if (!r.converged) return this.reject(r.reason ?? 'corrector failed')
-    const an = analysePoint(problem, solver, r.y, c, o.sigmaIterations, a0.sigmaVector)
+    const an = analysePoint(problem, solver, r.y, c, o.sigmaIterations, a0.marginVector ?? a0.sigmaVector)
     if (!an.ok) return this.reject(an.reason)
     const turn = Math.acos(Math.max(-1, Math.min(1, dot(a0.t, an.a.t))))
     if (turn > o.maxTurnAngle) return this.reject(`tangent turned by ${turn.toFixed(3)} rad > maxTurnAngle`)

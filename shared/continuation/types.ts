@@ -38,6 +38,26 @@ export interface ContinuationProblem {
   diagnostics?(u: Float64Array, lambda: number): Record<string, number>
   /** Monitor σ_min(F_u) at every point (default true). */
   sigmaMin?: boolean
+  /**
+   * When given, the monitored σ_min is the rigidity margin of the full problem instead of
+   * σ_min(F_u): see {@link RigidityMargin} and sigma-min.ts.
+   */
+  rigidityMargin?: RigidityMargin
+  /** Without a rigidity margin: factor applied to σ_min(F_u) (e.g. ℓ̄ to make it dimensionless; default 1). */
+  sigmaScale?(u: Float64Array, lambda: number): number
+}
+
+/**
+ * How F_u (the full symmetric Jacobian with some coordinates pinned) relates to the rigidity
+ * verdict's operator: the full Jacobian has `fullSize` coordinates, u holds those in `free` (in
+ * order), its kernel contains the orthonormal `trivial` motions, and `scale(u, λ)` makes the
+ * smallest |eigenvalue| on the complement of the trivial motions dimensionless (ℓ̄, or 1/K̄).
+ */
+export interface RigidityMargin {
+  fullSize: number
+  free: Int32Array
+  trivial: Float64Array[]
+  scale(u: Float64Array, lambda: number): number
 }
 
 /** Where a run starts: a point, optionally with a tangent (restart) and a step size. */
@@ -80,7 +100,11 @@ export interface ContinuationPoint {
   /** Max-norm of F at the point. */
   residualNorm: number
   tests: TestValues
-  /** Estimate of σ_min(F_u) (see sigma-min.ts), if monitored; 0 when F_u could not be factorised. */
+  /**
+   * Estimate of σ_min (see sigma-min.ts), if monitored; 0 when F_u could not be factorised. With
+   * the problem's `rigidityMargin` it is the dimensionless margin of the rigidity verdict (trivial
+   * motions removed, × ℓ̄ or ÷ K̄), which compares across pattern sizes; otherwise σ_min(F_u).
+   */
   sigmaMin?: number
   diagnostics?: Record<string, number>
 }

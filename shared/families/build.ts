@@ -14,9 +14,6 @@ import { phasePath, phaseProblem } from './phase'
 import { planeWingProblem } from './plane'
 import { torusLatticeProblem } from './torus'
 
-/** The start solve uses dense Newton (pattern core); above this many vertices the engine's own sparse Newton at fixed λ does it. */
-export const DENSE_START_SOLVE_MAX_VERTICES = 1500
-
 /** A family ready to run. */
 export interface FamilySetup {
   model: PatternModel
@@ -73,18 +70,17 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
   return o
 }
 
-/** Builds the problem, balances the start (small patterns) and fills the engine options. */
+/** Builds the problem, balances the start (sparse Newton at every size) and fills the engine options. */
 export function setupFamily(doc: PatternDocument, settings: FamilySettings): FamilySetup {
   const model = compilePattern(doc)
   const { problem, lambda0, unknowns } = familyProblem(doc, settings, model)
   const V = model.nVertices
   let u: Float64Array
   let startNote: string | undefined
-  const small = V <= DENSE_START_SOLVE_MAX_VERTICES
   if (unknowns === 'phase') {
     const path = phasePath(model, settings.path)
     u = model.psi.slice(1)
-    if (settings.balanceFirst && small) {
+    if (settings.balanceFirst) {
       const r = solvePhases(model, model.psi, path.alpha(lambda0), path.weights(lambda0))
       if (r.converged) u = r.psi.slice(1)
       else startNote = `phase solve at the start did not converge: ${r.reason ?? ''}`
@@ -92,7 +88,7 @@ export function setupFamily(doc: PatternDocument, settings: FamilySettings): Fam
   } else {
     const lat = model.space === 'torus' ? latticePath(settings.path, model.lattice).at(lambda0).lattice : model.lattice
     let p = model.positions
-    if (settings.balanceFirst && small) {
+    if (settings.balanceFirst) {
       const r = solveBalance(model, p, lat)
       if (r.converged) p = r.positions
       else startNote = `balance solve at the start did not converge: ${r.reason ?? ''}`

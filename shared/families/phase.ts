@@ -9,10 +9,11 @@
  */
 import type { ContinuationProblem } from '../continuation/types'
 import type { PatternModel } from '../pattern/model'
-import { pinnedLevelJacobian } from '../pattern/phase-solve'
+import { meanWeight, pinnedLevelJacobian } from '../pattern/phase-solve'
 import { phaseDifferences } from '../pattern/phases'
 import { levelAlphaDerivative, levelJacobian, levelResidual, modelLevels } from '../pattern/vertical-balance'
 import type { FamilyPath } from '../types/family'
+import { pinnedFirstVertexMargin } from './margin'
 
 /** α(λ), dα/dλ and K(λ), dK/dλ of a phase path. */
 export interface PhasePath {
@@ -86,6 +87,11 @@ export function phaseProblem(m: PatternModel, path: PhasePath): { problem: Conti
       for (let i = 0; i < n; i++) Flambda[i]! += G[i]!
       return { Fu, Flambda }
     },
+    // one level: F_u is the pinned symmetric Laplacian block, so the monitor reads the phase verdict's
+    // own margin (σ_min on non-constant ψ, ÷ K̄); several levels: σ_min of the pinned rows ÷ K̄
+    ...(levels.singleLevel
+      ? { rigidityMargin: pinnedFirstVertexMargin(V, 1, (_u, l) => 1 / meanWeight(path.weights(l))) }
+      : { sigmaScale: (_u: Float64Array, l: number) => 1 / meanWeight(path.weights(l)) }),
     diagnostics(u, l) {
       const phi = phaseDifferences(m, fullPsi(u, pinned), path.alpha(l))
       let minCos = Infinity

@@ -106,6 +106,8 @@ export function planeWingProblem(m: PatternModel, rotate: string[], compensate: 
       return { Fu: b.build(), Flambda }
     },
     events: [...drawingEvents(m, drawingAt, { ...ev, latticeMoves: false }), ...conditionEvents(m, drawingAt, { terminal: false, walls: false, planeRankTolerance: 1e-7 })],
+    // F_u is unsymmetric here (the μ column, the scale row): σ_min(F_u)·ℓ̄, dimensionless
+    sigmaScale(u, l) { return meanEdgeLength(m, drawingAt(u, l).p, lat) },
     diagnostics(u, l) {
       const { p } = drawingAt(u, l)
       return { totalLength: totalLength(m, p, lat), minEdgeRatio: minEdgeLength(m, p, lat) / meanEdgeLength(m, p, lat), compensateAngle: u[n - 1]! }

@@ -13,6 +13,7 @@ import { drawingEvents, type DrawingAt } from './events'
 import { conditionEvents, trivialPhases } from './walls'
 import { latticeShapeArea, latticeTau, type LatticePath } from './lattice-paths'
 import { addTrailingBlock } from './reduce'
+import { pinnedFirstVertexMargin } from './margin'
 
 /** Event settings shared by the drawing families. */
 export interface DrawingEventOptions { collapseTolerance: number; orderFlip: boolean; terminal: boolean }
@@ -52,6 +53,8 @@ export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: Draw
       return { Fu: b.build(), Flambda }
     },
     events: [...drawingEvents(m, drawingAt, { ...ev, latticeMoves: true }), ...conditionEvents(m, drawingAt, { terminal: false, walls: !trivialPhases(m) })],
+    // the rigidity verdict's dimensionless margin: σ_min of J on the complement of translations, × ℓ̄
+    rigidityMargin: pinnedFirstVertexMargin(V, 2, (u, l) => { const d = drawingAt(u, l); return meanEdgeLength(m, d.p, d.lattice) }),
     diagnostics(u, l) {
       const { p, lattice } = drawingAt(u, l)
       const tau = latticeTau(lattice)

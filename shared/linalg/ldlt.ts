@@ -149,14 +149,22 @@ export function ldltFactor(A: Csc, sym: LdltSymbolic): LdltOutcome {
 export class LdltFactor {
   readonly kind = 'ldlt' as const
   readonly n: number
-  constructor(readonly symbolic: LdltSymbolic, private readonly Li: Int32Array, private readonly Lx: Float64Array, readonly D: Float64Array) {
+  private readonly Lp: Int32Array
+  /** `Lp` defaults to the symbolic's column pointers (the supernodal factor passes its own). */
+  constructor(
+    readonly symbolic: Pick<LdltSymbolic, 'n' | 'perm'>, private readonly Li: Int32Array, private readonly Lx: Float64Array,
+    readonly D: Float64Array, Lp?: Int32Array,
+  ) {
     this.n = symbolic.n
+    const lp = Lp ?? (symbolic as Partial<LdltSymbolic>).Lp
+    if (!lp) throw new Error('LdltFactor: column pointers of L missing')
+    this.Lp = lp
   }
 
   /** Solve A x = b. */
   solve(b: ArrayLike<number>, out: Float64Array = new Float64Array(this.n)): Float64Array {
-    const { n, Li, Lx, D } = this
-    const { Lp, perm } = this.symbolic
+    const { n, Li, Lx, D, Lp } = this
+    const { perm } = this.symbolic
     const x = new Float64Array(n)
     for (let k = 0; k < n; k++) x[k] = b[perm[k]!]!
     for (let j = 0; j < n; j++) {

@@ -9,6 +9,7 @@
 import { CscPattern, symmetricAdjacency } from './csc'
 import { DenseFactor, tripletsToDense } from './dense'
 import { LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
+import { SupernodalSymbolic, supernodalFactor } from './supernodal'
 import { LuFactor, luFactor } from './lu'
 import { naturalOrdering, nestedDissection } from './ordering'
 import type { Triplets } from './triplets'
@@ -28,11 +29,16 @@ export interface SolverOptions {
   leafSize?: number
   /** LU threshold for keeping the diagonal pivot. Default 0.1. */
   pivotTolerance?: number
+  /**
+   * Numeric LDLᵀ: 'supernodal' (default; multifrontal with dense blocks, ./supernodal.ts) or
+   * 'up-looking' (one row at a time, ./ldlt.ts; the reference in tests). Same pivots up to rounding.
+   */
+  ldlt?: 'supernodal' | 'up-looking'
 }
 
 /** Defaults of {@link SolverOptions}. */
 export const SOLVER_DEFAULTS: Required<SolverOptions> = {
-  method: 'auto', denseBelow: 0, ordering: 'nested-dissection', leafSize: 64, pivotTolerance: 0.1,
+  method: 'auto', denseBelow: 0, ordering: 'nested-dissection', leafSize: 64, pivotTolerance: 0.1, ldlt: 'supernodal',
 }
 
 /** Fill defaults and reject nonsense. */
@@ -43,6 +49,7 @@ export function validateSolverOptions(o: SolverOptions = {}): Required<SolverOpt
   if (!(Number.isInteger(r.denseBelow) && r.denseBelow >= 0)) throw new Error('solver: denseBelow must be an integer ≥ 0')
   if (!(Number.isInteger(r.leafSize) && r.leafSize >= 1)) throw new Error('solver: leafSize must be an integer ≥ 1')
   if (!(r.pivotTolerance > 0 && r.pivotTolerance <= 1)) throw new Error('solver: pivotTolerance must be in (0, 1]')
+  if (!['supernodal', 'up-looking'].includes(r.ldlt)) throw new Error(`solver: unknown ldlt variant '${r.ldlt}'`)
   return r
 }
 
@@ -56,7 +63,7 @@ export class SparseSolver {
   readonly options: Required<SolverOptions>
   private pattern?: CscPattern
   private perm?: Int32Array
-  private symbolic?: LdltSymbolic
+  private symbolic?: LdltSymbolic | SupernodalSymbolic
   /** Number of times the pattern analysis (compression + ordering) was (re)done. */
   analyses = 0
 
@@ -81,8 +88,8 @@ export class SparseSolver {
     const A = this.pattern.fill(t)
     let ldltReason = ''
     if (symmetric && o.method !== 'lu') {
-      this.symbolic ??= new LdltSymbolic(this.pattern, this.perm!)
-      const r = ldltFactor(A, this.symbolic)
+      this.symbolic ??= o.ldlt === 'supernodal' ? new SupernodalSymbolic(this.pattern, this.perm!) : new LdltSymbolic(this.pattern, this.perm!)
+      const r = this.symbolic instanceof SupernodalSymbolic ? supernodalFactor(A, this.symbolic) : ldltFactor(A, this.symbolic)
       if (r.ok) return { ok: true, factor: r.factor, inertia: r.factor.inertia }
       ldltReason = `LDLᵀ: ${r.reason}; `
       if (o.method === 'ldlt') return { ok: false, reason: ldltReason }

@@ -86,7 +86,8 @@ function drawingValues(m: PatternModel, drawingAt: DrawingAt, p: ContinuationPoi
     minEdgeRatio: d.minEdgeRatio,
     lengthPerRootArea: d.totalLength !== undefined && d.area !== undefined ? d.totalLength / Math.sqrt(Math.abs(d.area)) : undefined,
   }
-  if (p.sigmaMin !== undefined) v.sigmaMin = p.sigmaMin * meanEdgeLength(m, pos, lattice)
+  // the torus problems monitor the rigidity verdict's margin (already dimensionless)
+  if (p.sigmaMin !== undefined) v.sigmaMin = p.sigmaMin
   if (p.tests.negativeEigenvalues !== undefined) v.negativeEigenvalues = p.tests.negativeEigenvalues
   return v
 }
@@ -102,7 +103,7 @@ function alphaPlane(m: PatternModel): MapPlaneModel {
       problem,
       values: (p) => {
         const v: CellValues = { minCos: p.diagnostics?.minCos }
-        if (p.sigmaMin !== undefined) v.sigmaMin = p.sigmaMin / kBar
+        if (p.sigmaMin !== undefined) v.sigmaMin = p.sigmaMin // phase problems monitor σ_min/K̄ already
         if (p.tests.negativeEigenvalues !== undefined) v.negativeEigenvalues = p.tests.negativeEigenvalues
         return v
       },

@@ -44,7 +44,10 @@ export interface AnalyzeOptions {
   orderTolerance?: number
   /** |Σ open wing directions| must not exceed this. Default 1e-9. */
   wingTolerance?: number
-  /** Dense spectra up to this many vertices; above, sparse LDLᵀ + inverse iteration. Default 400. */
+  /**
+   * Dense spectra up to this many vertices; above, sparse LDLᵀ + inverse iteration. Default 32:
+   * measured (`npm run bench`), the sparse check is already faster from about 30 vertices.
+   */
   maxDenseVertices?: number
 }
 
@@ -58,7 +61,7 @@ export const DEFAULT_ANALYZE_OPTIONS: Required<AnalyzeOptions> = {
   latticeTolerance: 1e-9,
   orderTolerance: 1e-12,
   wingTolerance: 1e-9,
-  maxDenseVertices: 400,
+  maxDenseVertices: 32,
 }
 
 /** Fills defaults; throws on a non-positive tolerance or a bad vertex limit. */

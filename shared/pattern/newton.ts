@@ -4,6 +4,8 @@
  * Nonlinear Equations, 1983, §6.3). Square systems use the LU decomposition of ml-matrix;
  * rectangular or singular ones the SVD least-squares step (Gauss–Newton), which handles
  * consistent over-determined systems such as the plane balance with the scale fixed.
+ * A problem may instead provide its own linear step (`step`, e.g. a sparse factorisation); the
+ * dense Jacobian is then only the fallback where that step has none.
  */
 import { LuDecomposition, Matrix, solve } from 'ml-matrix'
 import { norm2 } from './vector'
@@ -12,7 +14,10 @@ import { norm2 } from './vector'
 export interface NewtonProblem {
   x0: Float64Array
   residual: (x: Float64Array) => Float64Array
-  jacobian: (x: Float64Array) => Matrix
+  /** Dense Jacobian; needed unless `step` is given (then only used where `step` returns null). */
+  jacobian?: (x: Float64Array) => Matrix
+  /** Newton step dx solving J dx ≈ −F(x) (least squares if J is not square); null: none found. */
+  step?: (x: Float64Array, f: Float64Array) => Float64Array | null
   /** Norm reported and tested against the tolerance (default ‖F‖₂). */
   norm?: (x: Float64Array) => number
   /** False for points the line search must not accept (for instance a collapsed edge). */
@@ -65,7 +70,12 @@ export function dampedNewton(problem: NewtonProblem, s: NewtonSettings): NewtonR
         reason: 'nothing to move: the residual does not depend on the free unknowns',
       }
     }
-    const dx = newtonStep(problem.jacobian(x), problem.residual(x))
+    const f = problem.residual(x)
+    const own = problem.step ? problem.step(x, f) : null
+    if (!own && !problem.jacobian) {
+      return { converged: false, iterations: it, residualNorm: r, x, reason: 'the Newton matrix could not be factorised' }
+    }
+    const dx = own ?? newtonStep(problem.jacobian!(x), f)
     const merit = problem.merit
     const m0 = merit ? merit.value(x) : 0
     const slope = merit ? merit.slope(x, dx) : 0

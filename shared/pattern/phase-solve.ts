@@ -53,6 +53,9 @@ export interface PhaseSolveResult {
   reason?: string
 }
 
+/** Vertices up to which a singular phase Jacobian falls back to the dense least-squares step. */
+const DENSE_FALLBACK_MAX_VERTICES = 800
+
 /** Columns of the unpinned vertices, and a map back to ψ. */
 export function freePhaseColumns(V: number, s: LevelStructure): { free: number[]; column: Int32Array } {
   const pinned = new Set(s.pinned)
@@ -83,12 +86,22 @@ export function solvePhases(
   const o = resolvePhaseSolveOptions(options)
   const kBar = meanWeight(weights)
   const { free, column } = freePhaseColumns(m.nVertices, levels)
+  const n = free.length
   const embed = (x: Float64Array) => { const p = Float64Array.from(psi0); free.forEach((v, i) => { p[v] = x[i]! }); return p }
   const F = (x: Float64Array) => levelResidual(m, levels, embed(x), alpha, weights)
+  const pinnedJ = (x: Float64Array) => pinnedLevelJacobian(levelJacobian(m, levels, embed(x), alpha, weights), column, n)
+  // one level, connected: the rows are vertex sums, a symmetric Laplacian block (LDLᵀ); otherwise LU.
+  // Sparse at every size; the dense least-squares step only for small singular Jacobians.
+  const symmetric = levels.singleLevel && levels.components === 1
+  const solver = new SparseSolver()
   const r = dampedNewton({
     x0: Float64Array.from(free, v => psi0[v]!),
     residual: F,
-    jacobian: x => tripletsToDense(pinnedLevelJacobian(levelJacobian(m, levels, embed(x), alpha, weights), column, free.length)),
+    step: (x, f) => {
+      const fac = solver.factor(pinnedJ(x), symmetric && false)
+      return fac.ok ? fac.factor.solve(f.map(v => -v)) : null
+    },
+    ...(n <= DENSE_FALLBACK_MAX_VERTICES ? { jacobian: (x: Float64Array) => tripletsToDense(pinnedJ(x)) } : {}),
     norm: x => norm2(F(x)) / kBar,
   }, o)
   return {
@@ -100,7 +113,7 @@ export function solvePhases(
 /** Phase rigidity of ψ: dimensionless σ_min, inertia (symmetric case), the weakest phase mode. */
 export interface PhaseRigidityResult {
   method: 'dense' | 'sparse'
-  /** Set when the sparse inverse iteration did not settle. */
+  /** Set when the sparse Lanczos iteration did not settle. */
   reason?: string
   /** Number of level rows (V − c) = size of the pinned square matrix. */
   dimension: number
@@ -144,7 +157,7 @@ export function analyzePhaseRigidity(
       return {
         method: 'sparse', dimension: s.dimension, sigmaMin, inertia: s.inertia, eigenvalues: [], pinnedDeterminant: null,
         rigid: sigmaMin > tolerance, weakestMode: Array.from(s.mode), tolerance,
-        ...(s.converged ? {} : { reason: `inverse iteration did not settle in ${s.iterations} steps` }),
+        ...(s.converged ? {} : { reason: `Lanczos on the inverse did not settle in ${s.iterations} solves` }),
       }
     }
     const f = new SparseSolver().factor(A, false)

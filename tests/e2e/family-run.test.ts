@@ -136,7 +136,7 @@ describe('families in the browser', () => {
     const [svgDownload] = await Promise.all([page.waitForEvent('download'), page.click('[data-testid=export-svg]')])
     const svg = readFileSync((await svgDownload.path())!, 'utf8')
     expect(svg).toContain('Space Grotesk')
-    expect(svg).toMatch(/σ_min\(F_u\) \[1\/length\]/)
+    expect(svg).toMatch(/rigidity margin σ_min \[1\]/)
     expect(svg).toMatch(/fill="(#ffffff|#fff|white)"/i)
     expect(svg).toContain('numerical evidence, not proofs')
     const [pngDownload] = await Promise.all([page.waitForEvent('download'), page.click('[data-testid=export-png]')])

@@ -30,7 +30,8 @@ const DIAGNOSTICS: Record<string, { label: string, unit: string }> = {
   alpha1: { label: 'α1', unit: 'rad' },
   alpha2: { label: 'α2', unit: 'rad' },
   minCos: { label: 'smallest cos φ', unit: '1' },
-  sigmaMin: { label: 'σ_min(F_u)', unit: '1/length' },
+  // torus and phase runs: the rigidity verdict's σ_min (trivial motions removed); plane wing runs: ℓ̄·σ_min(F_u)
+  sigmaMin: { label: 'rigidity margin σ_min', unit: '1' },
 }
 
 /** λ of a path kind. */
