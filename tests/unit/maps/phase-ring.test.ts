@@ -33,10 +33,10 @@ describe('phase ring in the (α1, α2) plane', () => {
       expect(c.status).toBe('solved')
       const w = Math.cos(c.x / 2)
       expect(c.negativeEigenvalues).toBe(w > 0 ? 1 : 0)
-      // the map shows the phase-rigidity margin (σ_min on non-constant ψ, mean weight 1). Derived:
-      // the 1×1 F_u is −2w, so the full Jacobian is −2w·[[1, −1], [−1, 1]], whose eigenvalue on
-      // (1, −1)/√2 is −4w
-      expect(c.sigmaMin!).toBeCloseTo(4 * Math.abs(w), 6)
+      // the map shows the phase-rigidity verdict's margin (mean weight 1). With two length levels the
+      // verdict is σ_min of the pinned square row Jacobian (H. Chen, M. Traizet, arXiv 2103.15676,
+      // 2021, Def. 6.6: rank V − c); derived: that 1×1 matrix is −2w, so the margin is 2|w|
+      expect(c.sigmaMin!).toBeCloseTo(2 * Math.abs(w), 6)
     }
     expect(verifyMapCells(doc, settings, map.rows.flatMap(r => r.cells)).verified).toBe(true)
   })
