@@ -45,14 +45,14 @@ export interface PointCheck {
 }
 
 /** Checks regular and special points against the document and settings of a run. */
-export function checkPoints(doc: PatternDocument, settings: FamilySettings, points: Array<Pick<RunPoint, 'index' | 'lambda' | 'u'>>, special: Array<Pick<RunSpecialPoint, 'index' | 'lambda' | 'u'>>): PointCheck {
+export function checkPoints(doc: PatternDocument, settings: FamilySettings, points: Array<Pick<RunPoint, 'index' | 'lambda' | 'u'>>, special: Array<Pick<RunSpecialPoint, 'index' | 'lambda' | 'u'> & { kind?: string }>): PointCheck {
   const residuals = { points: new Map<number, number>(), special: new Map<number, number>() }
   const offending: PointCheck['offending'] = []
   let maxResidual = 0
-  const run = (list: typeof points, name: string, into: Map<number, number>) => {
+  const run = (list: typeof special, name: string, into: Map<number, number>) => {
     if (!list.length) return
     // the smallest positive tolerance lists every point with its max|F| in one pass (one problem build)
-    const v = verifyFamilyPoints(doc, settings, list.map(p => ({ index: p.index, lambda: p.lambda, u: p.u })), Number.MIN_VALUE)
+    const v = verifyFamilyPoints(doc, settings, list.map(p => ({ index: p.index, lambda: p.lambda, u: p.u, ...(p.kind ? { kind: p.kind } : {}) })), Number.MIN_VALUE)
     const found = new Map(v.offending.map(o => [o.index, o]))
     for (const p of list) {
       const o = found.get(p.index)
@@ -99,7 +99,7 @@ export async function verifyStoredRun(runId: number): Promise<void> {
   const { doc, settings } = await loadRunProblem(run)
   const picks = new Set(verificationSample(run.pointCount))
   const rows = await useDb().select().from(tables.runPoints).where(eq(tables.runPoints.runId, runId))
-  const toCheck = (r: typeof rows[number]) => ({ index: r.index < 0 ? -1 - r.index : r.index, lambda: r.lambda, u: (JSON.parse(r.state) as { u: number[] }).u })
+  const toCheck = (r: typeof rows[number]) => ({ index: r.index < 0 ? -1 - r.index : r.index, lambda: r.lambda, u: (JSON.parse(r.state) as { u: number[] }).u, ...(r.specialKind ? { kind: r.specialKind } : {}) })
   const regular = rows.filter(r => r.index >= 0 && picks.has(r.index)).map(toCheck)
   const special = rows.filter(r => r.index < 0).map(toCheck)
   const check = checkPoints(doc, settings, regular, special)

@@ -15,6 +15,7 @@ import { analysePoint, type PointAnalysis } from './analysis'
 import type { BorderedSolver } from './bordered'
 import { locateInSegment, type LocateContext, type Located, type Segment, type Watch } from './locate'
 import type { ResolvedOptions } from './options'
+import type { EventLimit } from './types'
 import { axpy, dot, normInf, normalized, norm2, probeVector } from './vectors'
 
 /** A located special point inside a step. */
@@ -27,6 +28,8 @@ export interface Finding {
   terminal: boolean
   /** Ends the run when options.stopAtSpecialPoint is set. */
   stopsOnRequest: boolean
+  /** Where the event really is, beyond the located crossing (ProblemEvent.limit). */
+  limit?: EventLimit
 }
 
 type Ctx = LocateContext & { solverT: BorderedSolver; options: ResolvedOptions }
@@ -96,7 +99,15 @@ export function detectInStep(ctx: Ctx, seg: Segment, first: { y: Float64Array; t
   }
   ;(problem.events ?? []).forEach((e, i) => {
     if (!crossing((a) => a.tests.events[i]!)) return
-    out.push({ kind: e.kind, label: e.label, located: locate({ type: 'continuous', value: (a) => a.tests.events[i]! }), terminal: e.terminal ?? true, stopsOnRequest: true })
+    const located = locate({ type: 'continuous', value: (a) => a.tests.events[i]! })
+    const f: Finding = { kind: e.kind, label: e.label, located, terminal: e.terminal ?? true, stopsOnRequest: true }
+    if (e.limit) {
+      const limit = e.limit(located.a.y.subarray(0, n), located.a.y[n]!)
+      // without a limit the crossing is only the stop distance: not the event's location
+      if (limit) f.limit = limit
+      else f.located = { ...located, located: false }
+    }
+    out.push(f)
   })
   for (const m of o.milestones) {
     const fn = (a: PointAnalysis): number => a.y[n]! - m

@@ -152,6 +152,14 @@ export class Continuation {
       iterations: f.located.iterations,
     }
     if (f.kernel) sp.kernel = Array.from(f.kernel)
+    if (f.limit) {
+      sp.stoppedAt = { lambda: sp.lambda }
+      sp.lambda = f.limit.lambda
+      sp.u = f.limit.u
+      sp.precision = f.limit.precision
+      sp.located = f.limit.located
+      if (f.limit.label) sp.label = f.limit.label
+    }
     this.specialPoints.push(sp)
     return sp
   }
@@ -197,10 +205,11 @@ export class Continuation {
         newPoints.push(this.pushPoint(f.located.a, (f.located.theta - thetaPrev) * ds, f.located.newtonIterations, f.located.residualNorm))
         thetaPrev = f.located.theta
       }
-      newSpecial.push(this.pushSpecial(f))
+      const sp = this.pushSpecial(f)
+      newSpecial.push(sp)
       if (terminal) {
         this.cur = f.located.a
-        this.finish(`stopped at ${f.kind}: ${f.label}`)
+        this.finish(`stopped at ${f.kind}: ${sp.label}`)
         return { status: 'finished', points: newPoints, specialPoints: newSpecial, stepSize: this.ds, reason: this.finishReason }
       }
     }

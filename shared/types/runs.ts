@@ -46,6 +46,8 @@ export const RunSpecialPointSchema = z.object({
   precision: finite.default(0),
   located: z.boolean().default(false),
   iterations: z.number().int().min(0).default(0),
+  /** A collapse located at length 0: where the run stopped (the tolerance crossing). */
+  stoppedAt: z.object({ lambda: finite }).optional(),
 })
 export type RunSpecialPointPayload = z.input<typeof RunSpecialPointSchema>
 
