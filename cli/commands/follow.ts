@@ -33,7 +33,7 @@ function pathFrom(kind: string, v: Record<string, string | undefined>): FamilyPa
   }
 }
 
-/** Runs the command; returns the exit code (0 finished, 1 refused or failed run, 2 bad usage). */
+/** Runs the command; returns the exit code (0 finished, 1 refused, stopped (no convergence) or failed run, 2 bad usage). */
 export async function run(args: string[]): Promise<number> {
   let parsed
   try {

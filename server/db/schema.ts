@@ -90,6 +90,8 @@ export const runs = sqliteTable('runs', {
   specialCount: integer('special_count').notNull().default(0),
   verification: text('verification', { enum: VERIFICATION_STATES }).notNull().default('pending'),
   verificationReason: text('verification_reason'),
+  /** Why the run ended (the reason given with its final status). */
+  finishReason: text('finish_reason'),
   appVersion: text('app_version').notNull(),
   authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
   parentRunId: integer('parent_run_id'),

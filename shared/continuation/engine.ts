@@ -37,6 +37,8 @@ export class Continuation {
   readonly specialPoints: SpecialPoint[] = []
   done = false
   started = false
+  /** True when the run ended because the corrector kept failing (step size below minStep). */
+  stalled = false
   finishReason?: string
   readonly options: ResolvedOptions
   readonly stats = { accepted: 0, rejected: 0, fullBorderedSolves: 0 }
@@ -168,7 +170,9 @@ export class Continuation {
     this.stats.rejected++
     this.ds *= this.options.shrinkFactor
     if (this.ds < this.options.minStep) {
-      this.finish(`step size fell below minStep (${this.options.minStep}); last failure: ${reason}`)
+      this.stalled = true
+      const l = this.cur.y[this.problem.n]!
+      this.finish(`no convergence past λ = ${l.toPrecision(10)} (step size fell below minStep ${this.options.minStep}; last failure: ${reason})`)
       return { status: 'finished', points: [], specialPoints: [], stepSize: this.ds, reason: this.finishReason }
     }
     return { status: 'rejected', points: [], specialPoints: [], stepSize: this.ds, reason }
@@ -224,7 +228,7 @@ export class Continuation {
 
   /** The branch as plain data (arrays are the live ones; copy before mutating). */
   result(): BranchResult {
-    return { branch: this.branch, points: this.points, specialPoints: this.specialPoints, finishReason: this.finishReason, started: this.started, stats: { ...this.stats } }
+    return { branch: this.branch, points: this.points, specialPoints: this.specialPoints, finishReason: this.finishReason, started: this.started, ...(this.stalled ? { stalled: true } : {}), stats: { ...this.stats } }
   }
 }
 

@@ -166,6 +166,8 @@ export interface BranchResult {
   finishReason?: string
   /** False if the start was refused. */
   started: boolean
+  /** Set when the run ended because the corrector kept failing: the branch goes on, unfollowed. */
+  stalled?: boolean
   /** Counts for reporting. */
   stats: { accepted: number; rejected: number; fullBorderedSolves: number }
 }

@@ -40,8 +40,11 @@ export interface FamilyBatch {
   finishReason?: string
 }
 
-/** How a run ended. */
-export type FamilyStatus = 'running' | 'paused' | 'finished' | 'cancelled' | 'failed' | 'refused'
+/**
+ * How a run ended. 'stopped': the corrector kept failing (no convergence past the last point), so
+ * the family was not followed to its end; not a success.
+ */
+export type FamilyStatus = 'running' | 'paused' | 'finished' | 'stopped' | 'cancelled' | 'failed' | 'refused'
 
 /** The whole run as plain data. */
 export interface FamilyRunResult {
@@ -88,7 +91,7 @@ export class FamilyRunner {
 
   /** True once the run can make no more steps. */
   get done(): boolean {
-    return this.status === 'finished' || this.status === 'cancelled' || this.status === 'failed' || this.status === 'refused'
+    return this.status === 'finished' || this.status === 'stopped' || this.status === 'cancelled' || this.status === 'failed' || this.status === 'refused'
   }
 
   private progress(): FamilyProgress {
@@ -115,13 +118,14 @@ export class FamilyRunner {
         this.error = e instanceof Error ? e.message : String(e)
       }
     }
-    if (this.run.done && !this.done) this.status = 'finished'
+    if (this.run.done && !this.done) this.status = this.run.stalled ? 'stopped' : 'finished'
     return { points, specialPoints, progress: this.progress(), done: this.done, ...(this.done ? { finishReason: this.finishReason() } : {}) }
   }
 
   private finishReason(): string {
     if (this.status === 'failed') return `a step failed: ${this.error}`
     if (this.status === 'cancelled') return 'cancelled'
+    if (this.status === 'stopped') return `stopped: ${this.run.finishReason ?? ''}`
     return this.run.finishReason ?? ''
   }
 

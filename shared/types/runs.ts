@@ -72,7 +72,7 @@ export const runCreateSchema = z.object({
 export type RunCreatePayload = z.input<typeof runCreateSchema>
 
 /** Final states a browser may report. */
-export const RUN_END_STATES = ['complete', 'cancelled', 'failed'] as const
+export const RUN_END_STATES = ['complete', 'stopped', 'cancelled', 'failed'] as const
 
 /** POST /api/runs/[runId]/finish. */
 export const runFinishSchema = z.object({
@@ -127,6 +127,7 @@ export const runImportSchema = z.object({
     name: z.string().max(120),
     settings: FamilySettingsSchema,
     status: z.enum(RUN_STATUSES).optional(),
+    finishReason: z.string().max(1000).nullable().optional(),
     points: z.array(RunPointSchema).max(100_000),
     specialPoints: z.array(RunSpecialPointSchema).max(10_000).default([]),
   }).passthrough(),
@@ -149,6 +150,8 @@ export interface RunSummary {
   status: (typeof RUN_STATUSES)[number]
   verification: (typeof VERIFICATION_STATES)[number]
   verificationReason: string | null
+  /** Why the run ended, as the browser reported it (e.g. "stopped: no convergence past λ = …"). */
+  finishReason: string | null
   pointCount: number
   specialCount: number
   authorId: number | null

@@ -8,7 +8,7 @@ import { diagnosticQuantity, lambdaQuantity, withUnit } from './units'
 
 /** What an export needs about the run. */
 export interface ExportRun {
-  summary: Pick<RunSummary, 'id' | 'name' | 'pathKind' | 'status' | 'verification' | 'verificationReason' | 'graphName' | 'graphVersion' | 'appVersion' | 'createdAt'>
+  summary: Pick<RunSummary, 'id' | 'name' | 'pathKind' | 'status' | 'verification' | 'verificationReason' | 'graphName' | 'graphVersion' | 'appVersion' | 'createdAt'> & { finishReason?: string | null }
   settings: unknown
   points: StoredRunPoint[]
   specialPoints: StoredRunPoint[]
@@ -43,7 +43,7 @@ export function buildRunCsv(run: ExportRun): string {
   const header = ['index', `lambda: ${withUnit(lam)}`, 'residual: max|F| [1]', 'arclength [1]', 'step size [1]', ...keys.map(k => `${k}: ${withUnit(diagnosticQuantity(k))}`), 'special_after']
   const lines = [
     `# Wingfold ${run.exportedBy} run export (computed with Wingfold ${run.summary.appVersion})`,
-    `# run ${run.summary.id} "${run.summary.name}" on pattern "${run.summary.graphName}" version ${run.summary.graphVersion}; status ${run.summary.status}; verification ${run.summary.verification}`,
+    `# run ${run.summary.id} "${run.summary.name}" on pattern "${run.summary.graphName}" version ${run.summary.graphVersion}; status ${run.summary.status}${run.summary.finishReason ? ` (${run.summary.finishReason})` : ''}; verification ${run.summary.verification}`,
     `# settings ${JSON.stringify(run.settings)}`,
     `# ${RESULT_CAUTION}`,
     header.map(csvCell).join(','),
@@ -67,6 +67,7 @@ export function buildRunJson(run: ExportRun) {
     name: run.summary.name,
     pattern: { name: run.summary.graphName, version: run.summary.graphVersion },
     status: run.summary.status,
+    finishReason: run.summary.finishReason ?? null,
     verification: { state: run.summary.verification, reason: run.summary.verificationReason },
     lambda: lambdaQuantity(run.summary.pathKind),
     settings: run.settings,
