@@ -1,12 +1,12 @@
 /**
  * `wingfold map FILE --plane tau --re MIN:MAX:N --im MIN:MAX:N [--json | --csv]`: a moduli map
  * of the pattern over the τ plane (or `--plane alpha --a1 … --a2 …`), swept row by row by
- * continuation from the seed (shared/maps).
+ * continuation from the seed, then along columns from solved cells (shared/maps).
  */
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { mapToCsv, mapToText, runMapSweep } from '../../shared/maps'
-import type { MapSettingsInput } from '../../shared/types/maps'
+import { pastDegeneration, type MapSettingsInput } from '../../shared/types/maps'
 import { readPatternFile } from '../read-document'
 
 export const summary = 'FILE --plane tau --re A:B:N --im A:B:N  moduli map (or --plane alpha --a1 … --a2 …); --json or --csv'
@@ -85,10 +85,11 @@ export async function run(args: string[]): Promise<number> {
   else {
     const cells = map.rows.flatMap(r => r.cells)
     const solved = cells.filter(c => c.status === 'solved').length
+    const past = cells.filter(pastDegeneration).length
     const ended = new Map<string, number>()
     for (const c of cells) if (c.endedBy) ended.set(c.endedBy, (ended.get(c.endedBy) ?? 0) + 1)
-    console.log(`${map.settings.plane} map ${map.xs.length}×${map.ys.length}: ${solved} cells solved, ${cells.length - solved} unreachable (${[...ended].map(([k, n]) => `${k}: ${n}`).join(', ') || 'none'}); ${ms.toFixed(0)} ms`)
-    console.log('digits: negative eigenvalues of F_u; "." unreachable; ^ spine column')
+    console.log(`${map.settings.plane} map ${map.xs.length}×${map.ys.length}: ${solved} cells solved, ${past} past a degeneration, ${cells.length - solved - past} unreachable from the seed (${[...ended].map(([k, n]) => `${k}: ${n}`).join(', ') || 'none'}); ${ms.toFixed(0)} ms`)
+    console.log('digits: negative eigenvalues of F_u; "x" past a collapse, order flip, lattice degeneracy or fold; "." unreachable from the seed; ^ spine column')
     console.log(mapToText(map))
     for (const c of [...map.spineCrossings, ...map.rows.flatMap(r => r.crossings)]) console.log(`  ${c.kind.padEnd(18)} at (${c.x.toPrecision(10)}, ${c.y.toPrecision(10)}) along a ${c.along}`)
   }

@@ -89,8 +89,22 @@ export interface MapCell {
   lambda?: number
   /** The state (positions of vertices 1..V−1, or phases 1..V−1): restart and verification. */
   u?: number[]
-  /** For unreachable cells: "collapse", "order flip", "lattice degeneracy", "fold", "no convergence", "row unreachable". */
+  /**
+   * For unsolved cells: a degeneration met on the way from a solved cell ("collapse", "order
+   * flip", "lattice degeneracy", "fold"), "no convergence", or {@link NOT_REACHED}.
+   */
   endedBy?: string
+}
+
+/** endedBy of a cell no continuation from a solved cell got to (shared/maps/fill.ts). */
+export const NOT_REACHED = 'unreachable from the seed'
+
+/** Events past which an unsolved cell is "past a degeneration" rather than unreachable from the seed. */
+export const DEGENERATIONS: readonly string[] = ['collapse', 'order flip', 'lattice degeneracy', 'fold']
+
+/** True for an unsolved cell that lies past a degeneration met on the way from a solved cell. */
+export function pastDegeneration(c: Pick<MapCell, 'status' | 'endedBy'>): boolean {
+  return c.status !== 'solved' && DEGENERATIONS.includes(c.endedBy ?? '')
 }
 
 /** A special point met while sweeping (rigidity loss, branch point, or the event ending a half row). */
