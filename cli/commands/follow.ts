@@ -21,6 +21,9 @@ const USAGE = `Usage: wingfold follow FILE --path KIND --to X [--json] [--max-po
 
 const nums = (s: string): number[] => s.split(',').map(Number)
 
+/** Relative precision reached in λ, as printed: "exact" for 0, else two digits. */
+const formatPrecision = (p: number): string => p === 0 ? 'exact' : p.toExponential(1)
+
 /** The path object from the command-line options. */
 function pathFrom(kind: string, v: Record<string, string | undefined>): FamilyPath {
   switch (kind) {
@@ -77,7 +80,7 @@ export async function run(args: string[]): Promise<number> {
     const pts = r.branch.points
     console.log(`${r.settings.path.kind}: ${pts.length} points, λ from ${pts[0]?.lambda ?? 'n/a'} to ${pts.at(-1)?.lambda ?? 'n/a'}; ${r.branch.finishReason ?? r.status}`)
     if (r.startNote) console.log(`note: ${r.startNote}`)
-    for (const s of r.branch.specialPoints) console.log(`  ${s.kind.padEnd(18)} λ = ${s.lambda.toPrecision(12)}  ${s.label}${s.located ? '' : ' (not located to tolerance)'}`)
+    for (const s of r.branch.specialPoints) console.log(`  ${s.kind.padEnd(18)} λ = ${s.lambda.toPrecision(12)}  ${s.label}; precision ${formatPrecision(s.precision)}${s.located ? '' : ` (not located to the tolerance ${r.settings.stop.locateTolerance})`}`)
     if (r.branch.specialPoints.length === 0) console.log('  no special points')
   }
   return r.status === 'finished' ? 0 : 1
