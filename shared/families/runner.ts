@@ -4,11 +4,12 @@
  * and the tests use it. A cancelled run, or a run where a step throws, ends with every point
  * computed so far and the reason.
  */
-import { createContinuation, type Continuation } from '../continuation/engine'
+import type { Continuation } from '../continuation/engine'
 import type { BranchResult, ContinuationPoint, ContinuationStart, SpecialPoint } from '../continuation/types'
 import { parseFamilySettings, type FamilySettings, type FamilySettingsInput } from '../types/family'
 import type { PatternDocument } from '../types/pattern'
 import { setupFamily, type FamilySetup } from './build'
+import { createFamilyRun, NO_UNKNOWNS_NOTE, type PathOnlyRun } from './path-only'
 
 /** Batch limits: a batch ends after `points` new points or `ms` milliseconds, whichever first. */
 export interface BatchOptions {
@@ -69,7 +70,7 @@ const tick = (): Promise<void> => new Promise(resolve => setTimeout(resolve, 0))
 export class FamilyRunner {
   readonly settings: FamilySettings
   readonly setup: FamilySetup
-  private readonly run: Continuation
+  private readonly run: Continuation | PathOnlyRun
   private status: FamilyStatus = 'paused'
   private error?: string
   private stepSize: number
@@ -84,7 +85,9 @@ export class FamilyRunner {
   constructor(doc: PatternDocument, settings: FamilySettingsInput | FamilySettings, from?: ContinuationStart) {
     this.settings = parseFamilySettings(settings)
     this.setup = setupFamily(doc, this.settings)
-    this.run = createContinuation(this.setup.problem, from ?? this.setup.start, this.setup.options, { id: `family-${this.settings.path.kind}` })
+    const branch = { id: `family-${this.settings.path.kind}` }
+    // no unknowns (one tower): nothing to continue, the family is the path itself (path-only.ts)
+    this.run = createFamilyRun(this.setup.problem, from ?? this.setup.start, this.setup.options, branch)
     this.stepSize = this.run.options.initialStep
     if (!this.run.started) this.status = 'refused'
   }
@@ -168,6 +171,6 @@ export class FamilyRunner {
   result(): FamilyRunResult {
     const r = this.run.result()
     const branch: BranchResult = { ...r, points: [...r.points], specialPoints: [...r.specialPoints], finishReason: this.done ? this.finishReason() : r.finishReason }
-    return { status: this.status, settings: this.settings, branch, ...(this.error ? { error: this.error } : {}), ...(this.setup.startNote ? { startNote: this.setup.startNote } : {}) }
+    return { status: this.status, settings: this.settings, branch, ...(this.error ? { error: this.error } : {}), ...(this.setup.problem.n === 0 ? { startNote: NO_UNKNOWNS_NOTE } : this.setup.startNote ? { startNote: this.setup.startNote } : {}) }
   }
 }
