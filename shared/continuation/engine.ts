@@ -82,10 +82,10 @@ export class Continuation {
     if (!o.allowSingularStart) {
       const J = jacobianAt(problem, r.y)
       const fu = solver.factorFu(J)
-      if (!fu.ok) return this.refuse(`F_u is singular at the start point (${fu.reason}); set allowSingularStart to start anyway`)
+      if (!fu.ok) return this.refuse(`F_u is singular at the start point (${fu.reason}); to start anyway, set ${this.optionName('allowSingularStart')} to true`)
       const sigma = estimateSigmaMin(fu.factor, problem.symmetric === true, o.sigmaIterations).sigma
       const scale = Math.max(1, normInf(J.Fu.values.subarray(0, J.Fu.count)))
-      if (sigma <= o.singularTolerance * scale) return this.refuse(`F_u is nearly singular at the start point (σ_min ≈ ${sigma.toExponential(2)}); set allowSingularStart to start anyway`)
+      if (sigma <= o.singularTolerance * scale) return this.refuse(`F_u is nearly singular at the start point (σ_min ≈ ${sigma.toExponential(2)}); to start anyway, set ${this.optionName('allowSingularStart')} to true`)
     }
     let t: Float64Array
     if (tangent) {
@@ -104,6 +104,11 @@ export class Continuation {
     this.first = { y: r.y.slice(), t: an.a.t.slice() }
     this.started = true
     this.pushPoint(an.a, 0, r.iterations, r.residualNorm)
+  }
+
+  /** An option as the caller's users type it (options.optionNames). */
+  private optionName(k: keyof NonNullable<ContinuationOptions['optionNames']>): string {
+    return this.options.optionNames[k] ?? k
   }
 
   private refuse(reason: string): void {
@@ -172,7 +177,7 @@ export class Continuation {
     if (this.ds < this.options.minStep) {
       this.stalled = true
       const l = this.cur.y[this.problem.n]!
-      this.finish(`no convergence past λ = ${l.toPrecision(10)} (step size fell below minStep ${this.options.minStep}; last failure: ${reason})`)
+      this.finish(`no convergence past λ = ${l.toPrecision(10)} (step size fell below ${this.optionName('minStep')} = ${this.options.minStep}; last failure: ${reason})`)
       return { status: 'finished', points: [], specialPoints: [], stepSize: this.ds, reason: this.finishReason }
     }
     return { status: 'rejected', points: [], specialPoints: [], stepSize: this.ds, reason }
@@ -196,7 +201,7 @@ export class Continuation {
     const an = analysePoint(problem, solver, r.y, c, o.sigmaIterations, a0.sigmaVector)
     if (!an.ok) return this.reject(an.reason)
     const turn = Math.acos(Math.max(-1, Math.min(1, dot(a0.t, an.a.t))))
-    if (turn > o.maxTurnAngle) return this.reject(`tangent turned by ${turn.toFixed(3)} rad > maxTurnAngle`)
+    if (turn > o.maxTurnAngle) return this.reject(`tangent turned by ${turn.toFixed(3)} rad, more than the ${o.maxTurnAngle} rad allowed in one step`)
 
     const findings = detectInStep(this.ctx, { y0: a0.y, c, ds, a0, a1: an.a }, this.first, this.points.length)
     const newPoints: ContinuationPoint[] = []
@@ -221,7 +226,7 @@ export class Continuation {
     newPoints.push(this.pushPoint(an.a, (1 - thetaPrev) * ds, r.iterations, r.residualNorm))
     this.prevY = a0.y
     this.cur = an.a
-    if (this.points.length >= o.maxPoints) this.finish(`reached maxPoints (${o.maxPoints})`)
+    if (this.points.length >= o.maxPoints) this.finish(`reached ${this.optionName('maxPoints')} (${o.maxPoints})`)
     this.stats.fullBorderedSolves = this.solver.fullFactorisations
     return { status: this.done ? 'finished' : 'accepted', points: newPoints, specialPoints: newSpecial, stepSize: this.ds, reason: this.finishReason }
   }

@@ -61,6 +61,13 @@ export function familyProblem(doc: PatternDocument, settings: FamilySettings, mo
   return { problem: w.problem, lambda0: 0, unknowns: 'drawing', collapseResidual: (u, l) => collapseLimitResidual(model, w.drawingAt, w.contracted, u, l) }
 }
 
+/** The engine options its messages name, as a family's settings file (and the setup form) spell them. */
+export const FAMILY_OPTION_NAMES = {
+  allowSingularStart: 'allowSingularStart (form: “start even if the start is not rigid”, under Advanced)',
+  minStep: 'step.min (form: “Smallest step”)',
+  maxPoints: 'stop.maxPoints (form: “Most points”)',
+}
+
 /** Engine options from the settings; λ is bounded on the side of the target. */
 export function familyOptions(settings: FamilySettings, lambda0: number): ContinuationOptions {
   const direction = settings.direction ?? (settings.to >= lambda0 ? 'increase' : 'decrease')
@@ -68,6 +75,9 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
   const o: ContinuationOptions = {
     direction,
     maxPoints: settings.stop.maxPoints,
+    // messages name the settings keys (and the form field) a user can change
+    optionNames: FAMILY_OPTION_NAMES,
+    ...(settings.allowSingularStart ? { allowSingularStart: true } : {}),
     stopAtSpecialPoint: settings.stop.stopAtSpecialPoint,
     locateTolerance: settings.stop.locateTolerance,
     // a given max (or min) below (above) the default first step moves the first step with it

@@ -105,7 +105,7 @@ export class PathOnlyRun {
       this.finishReason = `stopped at bound: ${newSpecial.at(-1)!.label}`
     } else if (this.points.length >= o.maxPoints) {
       this.done = true
-      this.finishReason = `reached maxPoints (${o.maxPoints})`
+      this.finishReason = `reached ${o.optionNames.maxPoints ?? 'maxPoints'} (${o.maxPoints})`
     }
     return { status: this.done ? 'finished' : 'accepted', points: [p], specialPoints: newSpecial, stepSize: o.initialStep, reason: this.finishReason }
   }

@@ -20,13 +20,15 @@ export interface SetupForm {
   pathArg: string
   pathArg2: string
   balanceFirst: boolean
+  /** Settings key allowSingularStart (checkbox “start even if the start is not rigid”). */
+  allowSingularStart: boolean
   step: { initial?: number, min?: number, max?: number, maxNewtonIterations?: number, chord?: boolean }
   stop: { maxPoints: number, collapseTolerance: number, orderFlip: boolean, stopAtEvents: boolean, stopAtSpecialPoint: boolean, locateTolerance: number }
 }
 
 /** Defaults of the form (step options empty: the engine's defaults apply). */
 export function defaultSetupForm(kind = 'shear'): SetupForm {
-  return { name: '', kind, to: 1, direction: '', pathArg: '', pathArg2: '', balanceFirst: true, step: {}, stop: { maxPoints: 500, collapseTolerance: 1e-3, orderFlip: true, stopAtEvents: true, stopAtSpecialPoint: false, locateTolerance: 1e-9 } }
+  return { name: '', kind, to: 1, direction: '', pathArg: '', pathArg2: '', balanceFirst: true, allowSingularStart: false, step: {}, stop: { maxPoints: 500, collapseTolerance: 1e-3, orderFlip: true, stopAtEvents: true, stopAtSpecialPoint: false, locateTolerance: 1e-9 } }
 }
 
 const nums = (s: string) => s.split(/[,;\s]+/).filter(Boolean).map(Number)
@@ -48,7 +50,7 @@ const clean = <T extends object>(o: T) => Object.fromEntries(Object.entries(o).f
 
 /** Validates the form with the shared schema: settings, or messages by field path. */
 export function formToSettings(f: SetupForm): { settings?: FamilySettings, errors: Record<string, string> } {
-  const input = { path: pathOf(f), to: f.to, ...(f.direction ? { direction: f.direction } : {}), balanceFirst: f.balanceFirst, step: clean(f.step), stop: f.stop }
+  const input = { path: pathOf(f), to: f.to, ...(f.direction ? { direction: f.direction } : {}), balanceFirst: f.balanceFirst, ...(f.allowSingularStart ? { allowSingularStart: true } : {}), step: clean(f.step), stop: f.stop }
   const r = FamilySettingsSchema.safeParse(input)
   if (r.success) return { settings: r.data, errors: {} }
   const errors: Record<string, string> = {}
@@ -65,15 +67,22 @@ export function settingsToForm(s: FamilySettings, name = ''): SetupForm {
   if (p.kind === 'alpha-line') pathArg = (p.direction as number[]).join(', ')
   if (p.kind === 'weight-scale') pathArg = (p.edges as string[]).join(', ')
   if (p.kind === 'wing-rotation') { pathArg = (p.rotate as string[]).join(', '); pathArg2 = (p.compensate as string[]).join(', ') }
-  return { name, kind: p.kind, to: s.to, direction: s.direction ?? '', pathArg, pathArg2, balanceFirst: s.balanceFirst, step: { ...s.step }, stop: { ...s.stop } }
+  return { name, kind: p.kind, to: s.to, direction: s.direction ?? '', pathArg, pathArg2, balanceFirst: s.balanceFirst, allowSingularStart: s.allowSingularStart === true, step: { ...s.step }, stop: { ...s.stop } }
 }
 
-/** Why a run may not start from this pattern (null: it may); `balanceFixes` when balancing first would fix it. */
-export function startRefusal(summary: Record<string, unknown> | null, kind: string, balanceFirst: boolean): { reason: string, balanceFixes: boolean } | null {
+/** The setup form's label of the allowSingularStart checkbox (messages name it). */
+export const ALLOW_SINGULAR_LABEL = 'start even if the start is not rigid'
+
+/**
+ * Why a run may not start from this pattern (null: it may); `balanceFixes` when balancing first
+ * would fix it. A start that is not rigid may start when `allowSingular` (allowSingularStart) is set.
+ */
+export function startRefusal(summary: Record<string, unknown> | null, kind: string, balanceFirst: boolean, allowSingular = false): { reason: string, balanceFixes: boolean } | null {
   if (!summary) return null
   const phase = (PHASE_PATH_KINDS as readonly string[]).includes(kind)
-  if (phase && summary.phaseRigid === false) return { reason: 'The phases are not rigid (the phase-rigidity verdict failed): the family is not locally unique there.', balanceFixes: false }
-  if (!phase && summary.rigid === false) return { reason: 'The start is not rigid (the rigidity verdict failed): the family is not locally unique there.', balanceFixes: false }
+  const anyway = `To start anyway, tick “${ALLOW_SINGULAR_LABEL}” under Advanced.`
+  if (!allowSingular && phase && summary.phaseRigid === false) return { reason: `The phases are not rigid (the phase-rigidity verdict failed): the family is not locally unique there. ${anyway}`, balanceFixes: false }
+  if (!allowSingular && !phase && summary.rigid === false) return { reason: `The start is not rigid (the rigidity verdict failed): the family is not locally unique there. ${anyway}`, balanceFixes: false }
   if (summary.balanced === false && !balanceFirst) return { reason: 'The start is not balanced (the balance verdict failed).', balanceFixes: true }
   return null
 }
