@@ -6,6 +6,7 @@ import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { FamilyRunner } from '../../shared/families/runner'
 import { FAMILY_PATH_KINDS, type FamilyPath, type FamilySettingsInput } from '../../shared/types/family'
+import { joinNegativeValues } from '../args'
 import { readPatternFile } from '../read-document'
 
 export const summary = 'FILE --path KIND --to X  follow a family (shear, stretch, angle, alpha1, …); --json for all points'
@@ -18,6 +19,12 @@ const USAGE = `Usage: wingfold follow FILE --path KIND --to X [--json] [--max-po
   --direction D1,D2          for --path alpha-line
   --edges ID,ID              for --path weight-scale
   --settings FILE            full family settings (JSON) instead of the options above`
+
+const OPTIONS = {
+  'path': { type: 'string' }, 'to': { type: 'string' }, 'json': { type: 'boolean' }, 'max-points': { type: 'string' },
+  'target': { type: 'string' }, 'points': { type: 'string' }, 'rotate': { type: 'string' }, 'compensate': { type: 'string' },
+  'direction': { type: 'string' }, 'edges': { type: 'string' }, 'settings': { type: 'string' },
+} as const
 
 const nums = (s: string): number[] => s.split(',').map(Number)
 
@@ -40,14 +47,7 @@ function pathFrom(kind: string, v: Record<string, string | undefined>): FamilyPa
 export async function run(args: string[]): Promise<number> {
   let parsed
   try {
-    parsed = parseArgs({
-      args, allowPositionals: true,
-      options: {
-        'path': { type: 'string' }, 'to': { type: 'string' }, 'json': { type: 'boolean' }, 'max-points': { type: 'string' },
-        'target': { type: 'string' }, 'points': { type: 'string' }, 'rotate': { type: 'string' }, 'compensate': { type: 'string' },
-        'direction': { type: 'string' }, 'edges': { type: 'string' }, 'settings': { type: 'string' },
-      },
-    })
+    parsed = parseArgs({ args: joinNegativeValues(args, OPTIONS), allowPositionals: true, options: OPTIONS })
   } catch (e) {
     console.error(`wingfold follow: ${(e as Error).message}\n${USAGE}`)
     return 2
