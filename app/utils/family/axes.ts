@@ -27,7 +27,7 @@ export interface DiagramSpecial {
   located?: boolean
 }
 
-/** Axis keys: 'lambda', 'arclength', 'sigmaMin', 'd:<diagnostic>', 'u:<k>'. */
+/** Axis keys: 'lambda', 'arclength', 'sigmaMin', 'latticeAngle' (arg τ), 'd:<diagnostic>', 'u:<k>'. */
 export type AxisKey = string
 
 /** The axes a run offers, given its path kind, vertex ids (vertex 0 is pinned) and the diagnostic keys its points record (the kind's usual ones are always offered). */
@@ -40,6 +40,8 @@ export function availableAxes(kind: string, vertexIds: readonly string[], record
     { ...diagnosticQuantity('sigmaMin'), key: 'sigmaMin' },
     ...diagnostics.filter(d => d !== 'sigmaMin').map(d => ({ ...diagnosticQuantity(d), key: `d:${d}` })),
   ]
+  // the angle between ω1 and ω2, arg τ, from Re τ and Im τ (lattice paths)
+  if (diagnostics.includes('tauRe') && diagnostics.includes('tauIm')) out.push({ ...diagnosticQuantity('latticeAngle'), key: 'latticeAngle' })
   vertexIds.slice(1).forEach((id, i) => {
     if (phase) out.push({ key: `u:${i}`, label: `phase of ${id}`, unit: 'rad' })
     else out.push({ key: `u:${2 * i}`, label: `x of ${id}`, unit: 'length' }, { key: `u:${2 * i + 1}`, label: `y of ${id}`, unit: 'length' })
@@ -52,6 +54,10 @@ export function axisValue(p: DiagramPoint, key: AxisKey): number | undefined {
   if (key === 'lambda') return p.lambda
   if (key === 'arclength') return p.arclength
   if (key === 'sigmaMin') return p.sigmaMin ?? p.diagnostics.sigmaMin
+  if (key === 'latticeAngle') {
+    const [re, im] = [p.diagnostics.tauRe, p.diagnostics.tauIm]
+    return re === undefined || im === undefined ? undefined : Math.atan2(im, re)
+  }
   if (key.startsWith('d:')) return p.diagnostics[key.slice(2)]
   if (key.startsWith('u:')) return p.u[Number(key.slice(2))]
   return undefined

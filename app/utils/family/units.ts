@@ -30,6 +30,7 @@ const DIAGNOSTICS: Record<string, { label: string, unit: string }> = {
   alpha1: { label: 'α1', unit: 'rad' },
   alpha2: { label: 'α2', unit: 'rad' },
   minCos: { label: 'smallest cos φ', unit: '1' },
+  latticeAngle: { label: 'lattice angle arg τ', unit: 'rad' },
   sigmaMin: { label: 'σ_min(F_u)', unit: '1/length' },
 }
 
