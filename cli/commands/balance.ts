@@ -3,6 +3,7 @@
  * document whose faces do not close (lattice shifts around a face not summing to zero) is refused
  * (exit 1, the faces named, nothing written): it does not describe a drawing in the torus.
  */
+import { formatNumber } from '../../shared/format'
 import { writeFile } from 'node:fs/promises'
 import { balancePattern } from '../../shared/pattern/balance-solve'
 import { computeFaces } from '../../shared/pattern/combinatorics'
@@ -26,7 +27,7 @@ export async function run(args: string[]): Promise<number> {
   const input = await readCommandInput('balance', summary, args, { output: { type: 'string', short: 'o' } })
   if ('exitCode' in input) return input.exitCode
   const r = balancePattern(input.doc)
-  const line = `${r.converged ? 'balanced' : 'not balanced'} after ${r.iterations} Newton steps, |B| = ${r.residualNorm.toExponential(2)}`
+  const line = `${r.converged ? 'balanced' : 'not balanced'} after ${r.iterations} Newton steps, |B| = ${formatNumber(r.residualNorm)}`
   if (!r.converged) {
     console.error(`${line}: ${r.reason}. Nothing written.`)
     return 1

@@ -2,6 +2,7 @@
  * `wingfold follow FILE --path KIND --to VALUE [--json] [--max-points N] [...]`: follow a family
  * of the pattern with the continuation engine and print its special points (all points with --json).
  */
+import { formatNumber } from '../../shared/format'
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { FamilyRunner } from '../../shared/families/runner'
@@ -29,7 +30,7 @@ const OPTIONS = {
 const nums = (s: string): number[] => s.split(',').map(Number)
 
 /** Relative precision reached in λ, as printed: "exact" for 0, else two digits. */
-const formatPrecision = (p: number): string => p === 0 ? 'exact' : p.toExponential(1)
+const formatPrecision = (p: number): string => p === 0 ? 'exact' : formatNumber(p, 2)
 
 /** The path object from the command-line options. */
 function pathFrom(kind: string, v: Record<string, string | undefined>): FamilyPath {

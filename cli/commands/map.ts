@@ -3,6 +3,7 @@
  * of the pattern over the τ plane (or `--plane alpha --a1 … --a2 …`), swept row by row by
  * continuation from the seed, then along columns from solved cells (shared/maps).
  */
+import { formatNumber } from '../../shared/format'
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { mapToCsv, mapToText, runMapSweep, traceAllCurves, type TracedCurve } from '../../shared/maps'
@@ -90,7 +91,7 @@ export async function run(args: string[]): Promise<number> {
     console.log(mapToText(map))
     for (const c of [...map.spineCrossings, ...map.rows.flatMap(r => r.crossings)]) console.log(`  ${c.kind.padEnd(18)} at (${c.x.toPrecision(10)}, ${c.y.toPrecision(10)}) along a ${c.along}`)
     for (const c of curves) {
-      console.log(`curve: ${c.kind}, ${c.points.length} points, max residual ${c.maxResidual.toExponential(1)}; ends: ${c.endReasons.join('; ')}`)
+      console.log(`curve: ${c.kind}, ${c.points.length} points, max residual ${formatNumber(c.maxResidual, 2)}; ends: ${c.endReasons.join('; ')}`)
       for (const [x, y] of c.points) console.log(`  ${x.toPrecision(10)} ${y.toPrecision(10)}`)
     }
   }

@@ -8,6 +8,7 @@
  * the last) plus every special point. A run with any offending point is "rejected" and the
  * reason names the points; it never becomes "verified" later.
  */
+import { formatNumber } from '#shared/format'
 import { eq, sql } from 'drizzle-orm'
 import { verifyFamilyPoints, type OffendingPoint } from '#shared/families/verify'
 import { parseFamilySettings, type FamilySettings } from '#shared/types/family'
@@ -59,7 +60,7 @@ export function checkPoints(doc: PatternDocument, settings: FamilySettings, poin
       const r = o ? o.residualNorm : 0
       into.set(p.index, r)
       if (Number.isNaN(r)) offending.push({ ...o!, name: `${name} ${p.index}` })
-      else if (!(r <= RUN_RESIDUAL_TOLERANCE)) offending.push({ index: p.index, residualNorm: r, reason: `max|F| = ${r.toExponential(2)}`, name: `${name} ${p.index}` })
+      else if (!(r <= RUN_RESIDUAL_TOLERANCE)) offending.push({ index: p.index, residualNorm: r, reason: `max|F| = ${formatNumber(r)}`, name: `${name} ${p.index}` })
       else maxResidual = Math.max(maxResidual, r)
     }
   }
@@ -105,7 +106,7 @@ export async function verifyStoredRun(runId: number): Promise<void> {
   const check = checkPoints(doc, settings, regular, special)
   const sampled = run.pointCount > FULL_CHECK_MAX_POINTS ? ` (sample of ${regular.length} of ${run.pointCount} points plus every special point)` : ''
   await useDb().update(tables.runs).set(check.ok
-    ? { verification: 'verified', verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${check.maxResidual.toExponential(2)})${sampled}.` }
+    ? { verification: 'verified', verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${formatNumber(check.maxResidual)})${sampled}.` }
     : { verification: 'rejected', verificationReason: rejectionReason(check) }).where(eq(tables.runs.id, runId))
   await noticeRunVerdict(runId) // e-mail to the author (never throws; respects the opt-out)
 }

@@ -2,6 +2,7 @@
  * Server-side re-evaluation of submitted family points: rebuilds the family's problem from the
  * document and settings with the same core and recomputes max|F(u, λ)| at each point.
  */
+import { formatNumber } from '../format'
 import type { FamilySettings, FamilySettingsInput } from '../types/family'
 import { parseFamilySettings } from '../types/family'
 import type { PatternDocument } from '../types/pattern'
@@ -49,7 +50,7 @@ export function verifyFamilyPoints(doc: PatternDocument, settings: FamilySetting
       for (let k = 0; k < F.length; k++) r = Math.max(r, Math.abs(F[k]!))
     }
     maxResidual = Math.max(maxResidual, r)
-    if (!(r <= tol)) offending.push({ index, residualNorm: r, reason: `max|F| = ${r.toExponential(2)} > ${tol}` })
+    if (!(r <= tol)) offending.push({ index, residualNorm: r, reason: `max|F| = ${formatNumber(r)} > ${tol}` })
   })
   return { verified: offending.length === 0, checked: points.length, maxResidual, offending }
 }

@@ -19,8 +19,18 @@ export type MapQuantity = (typeof MAP_QUANTITIES)[number]
 
 /** How each quantity is named on screen (colour-by choice, scale caption). */
 export const MAP_QUANTITY_LABELS: Record<MapQuantity, string> = {
-  sigmaMin: 'σ_min (dimensionless)', negativeEigenvalues: 'negative eigenvalues', minEdgeRatio: 'shortest / mean edge',
-  lengthPerRootArea: 'total length / √area', minCos: 'smallest cos φ',
+  sigmaMin: 'σ_min(F_u)·ℓ̄ (τ plane) or σ_min(F_u)/K̄ (α plane) [dimensionless]', negativeEigenvalues: 'negative eigenvalues of F_u [count]',
+  minEdgeRatio: 'min edge / mean edge [dimensionless]', lengthPerRootArea: 'total length / √area [dimensionless]', minCos: 'smallest cos φ [dimensionless]',
+}
+
+/**
+ * A map quantity's name and unit in one plane: σ_min(F_u) made dimensionless with the mean edge
+ * length ℓ̄ (drawings) or the mean weight K̄ (phases) — a different quantity from a run's
+ * σ_min(F_u) [1/length], so a different name.
+ */
+export function mapQuantityLabel(q: MapQuantity, plane: 'tau' | 'alpha'): string {
+  if (q === 'sigmaMin') return plane === 'tau' ? 'σ_min(F_u)·ℓ̄ [dimensionless]' : 'σ_min(F_u)/K̄ [dimensionless]'
+  return MAP_QUANTITY_LABELS[q]
 }
 
 /** Largest number of values on one axis (a 201 × 201 map has 40 401 cells). */

@@ -3,7 +3,7 @@
  * coordinate (drawing paths) or phase (phase paths). A point is read through `axisValue`. Pure.
  */
 import { PHASE_PATH_KINDS } from '#shared/types/family'
-import { diagnosticQuantity, expectedDiagnostics, lambdaQuantity, type Quantity } from './units'
+import { ARCLENGTH, diagnosticQuantity, expectedDiagnostics, lambdaQuantity, sigmaMinQuantity, type Quantity } from './units'
 
 /** A point as the diagram reads it (live engine points and stored points both map to this). */
 export interface DiagramPoint {
@@ -36,9 +36,9 @@ export function availableAxes(kind: string, vertexIds: readonly string[], record
   const phase = (PHASE_PATH_KINDS as readonly string[]).includes(kind)
   const out: Array<Quantity & { key: AxisKey }> = [
     lambdaQuantity(kind),
-    { key: 'arclength', label: 'pseudo-arclength', unit: '1' },
-    { ...diagnosticQuantity('sigmaMin'), key: 'sigmaMin' },
-    ...diagnostics.filter(d => d !== 'sigmaMin').map(d => ({ ...diagnosticQuantity(d), key: `d:${d}` })),
+    ARCLENGTH,
+    sigmaMinQuantity(kind),
+    ...diagnostics.filter(d => d !== 'sigmaMin').map(d => ({ ...diagnosticQuantity(d, kind), key: `d:${d}` })),
   ]
   // the angle between ω1 and ω2, arg τ, from Re τ and Im τ (lattice paths)
   if (diagnostics.includes('tauRe') && diagnostics.includes('tauIm')) out.push({ ...diagnosticQuantity('latticeAngle'), key: 'latticeAngle' })

@@ -4,7 +4,7 @@
  * Both carry the app version, the settings and the caution line. Pure functions.
  */
 import { RESULT_CAUTION, RUN_EXPORT_FORMAT, type RunSummary, type StoredRunPoint } from '#shared/types/runs'
-import { diagnosticQuantity, lambdaQuantity, withUnit } from './units'
+import { ARCLENGTH, diagnosticQuantity, lambdaQuantity, residualQuantity, STEP_SIZE, withUnit } from './units'
 
 /** What an export needs about the run. */
 export interface ExportRun {
@@ -40,7 +40,8 @@ export function buildRunCsv(run: ExportRun): string {
     const a = Number((s.state as { afterPoint?: number }).afterPoint ?? -1)
     after.set(a, [...(after.get(a) ?? []), `${s.specialKind} at λ=${s.lambda}`])
   }
-  const header = ['index', `lambda: ${withUnit(lam)}`, 'residual: max|F| [1]', 'arclength [1]', 'step size [1]', ...keys.map(k => `${k}: ${withUnit(diagnosticQuantity(k))}`), 'special_after']
+  const kind = run.summary.pathKind
+  const header = ['index', `lambda: ${withUnit(lam)}`, `residual: ${withUnit(residualQuantity(kind))}`, `arclength: ${withUnit(ARCLENGTH)}`, `step size: ${withUnit(STEP_SIZE)}`, ...keys.map(k => `${k}: ${withUnit(diagnosticQuantity(k, kind))}`), 'special_after']
   const lines = [
     `# Wingfold ${run.exportedBy} run export (computed with Wingfold ${run.summary.appVersion})`,
     `# run ${run.summary.id} "${run.summary.name}" on pattern "${run.summary.graphName}" version ${run.summary.graphVersion}; status ${run.summary.status}${run.summary.finishReason ? ` (${run.summary.finishReason})` : ''}; verification ${run.summary.verification}`,

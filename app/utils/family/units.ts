@@ -1,48 +1,72 @@
 /**
  * Names and units of the quantities a run records: λ per path kind (shared/families/README.md)
- * and the per-point diagnostics. Used by the CSV header, the axis labels and the exports.
+ * and the per-point diagnostics. Used by the CSV header, the axis labels, the inspector and the
+ * exports. One quantity has one name and one unit; a different scaling gets a different name
+ * (σ_min(F_u) of a run vs σ_min(F_u)·ℓ̄ of a map, shared/types/maps.ts).
  */
+import { PHASE_PATH_KINDS } from '#shared/types/family'
 
-/** A quantity with its display label and unit ("1" for dimensionless). */
+/** Unit of pure numbers. */
+export const DIMENSIONLESS = 'dimensionless'
+
+/** A quantity with its display label and unit ("dimensionless" for pure numbers). */
 export interface Quantity { key: string, label: string, unit: string }
 
 const LAMBDA: Record<string, { label: string, unit: string }> = {
-  'shear': { label: 'shear s (ω2 = ω2⁰ + s·ω1)', unit: '1' },
-  'stretch': { label: 'Im τ', unit: '1' },
+  'shear': { label: 'shear s (ω2 = ω2⁰ + s·ω1)', unit: DIMENSIONLESS },
+  'stretch': { label: 'Im τ', unit: DIMENSIONLESS },
   'angle': { label: 'angle of ω2', unit: 'rad' },
-  'interpolate': { label: 'interpolation t', unit: '1' },
+  'interpolate': { label: 'interpolation t', unit: DIMENSIONLESS },
   'tau-polyline': { label: 'position on the τ polyline', unit: 'segments' },
   'wing-rotation': { label: 'wing angle', unit: 'rad' },
   'alpha1': { label: 'α1', unit: 'rad' },
   'alpha2': { label: 'α2', unit: 'rad' },
-  'alpha-line': { label: 'line parameter t', unit: '1' },
-  'weight-scale': { label: 'weight factor s', unit: '1' },
+  'alpha-line': { label: 'line parameter t', unit: DIMENSIONLESS },
+  'weight-scale': { label: 'weight factor s', unit: DIMENSIONLESS },
 }
 
 const DIAGNOSTICS: Record<string, { label: string, unit: string }> = {
   totalLength: { label: 'total length', unit: 'length' },
-  minEdgeRatio: { label: 'min edge / mean edge', unit: '1' },
-  tauRe: { label: 'Re τ', unit: '1' },
-  tauIm: { label: 'Im τ', unit: '1' },
+  minEdgeRatio: { label: 'min edge / mean edge', unit: DIMENSIONLESS },
+  tauRe: { label: 'Re τ', unit: DIMENSIONLESS },
+  tauIm: { label: 'Im τ', unit: DIMENSIONLESS },
   area: { label: 'cell area', unit: 'length²' },
-  shapeArea: { label: 'shape area', unit: '1' },
+  shapeArea: { label: 'shape area', unit: DIMENSIONLESS },
   compensateAngle: { label: 'compensating angle μ', unit: 'rad' },
   alpha1: { label: 'α1', unit: 'rad' },
   alpha2: { label: 'α2', unit: 'rad' },
-  minCos: { label: 'smallest cos φ', unit: '1' },
+  minCos: { label: 'smallest cos φ', unit: DIMENSIONLESS },
   latticeAngle: { label: 'lattice angle arg τ', unit: 'rad' },
-  sigmaMin: { label: 'σ_min(F_u)', unit: '1/length' },
 }
+
+const isPhase = (kind?: string) => !!kind && (PHASE_PATH_KINDS as readonly string[]).includes(kind)
+
+/**
+ * σ_min(F_u) as a run records it: F is dimensionless for drawings (a sum of unit vectors) and u
+ * a length, so 1/length; for phases F is in units of the weights K and u in radians.
+ */
+export function sigmaMinQuantity(kind?: string): Quantity {
+  return isPhase(kind) ? { key: 'sigmaMin', label: 'σ_min(F_u) of the phases', unit: 'weight/rad' } : { key: 'sigmaMin', label: 'σ_min(F_u) of the drawing', unit: '1/length' }
+}
+
+/** max|F| of a point: dimensionless for drawings, in units of the weights for phases. */
+export function residualQuantity(kind?: string): Quantity {
+  return isPhase(kind) ? { key: 'residual', label: 'max|F| of the phases', unit: 'weight' } : { key: 'residual', label: 'max|F| of the drawing', unit: DIMENSIONLESS }
+}
+
+/** Pseudo-arclength and step sizes are measured in (u, λ) together, whose units mix. */
+export const ARCLENGTH: Quantity = { key: 'arclength', label: 'pseudo-arclength', unit: 'u and λ units' }
+export const STEP_SIZE: Quantity = { key: 'stepSize', label: 'step size', unit: 'u and λ units' }
 
 /** λ of a path kind. */
 export function lambdaQuantity(kind: string): Quantity {
-  const q = LAMBDA[kind] ?? { label: 'λ', unit: '1' }
+  const q = LAMBDA[kind] ?? { label: 'λ', unit: DIMENSIONLESS }
   return { key: 'lambda', ...q }
 }
 
 /** A diagnostic by key (unknown keys keep their name, unit "1"). */
 export function diagnosticQuantity(key: string): Quantity {
-  return { key, ...(DIAGNOSTICS[key] ?? { label: key, unit: '1' }) }
+  return { key, ...(DIAGNOSTICS[key] ?? { label: key, unit: DIMENSIONLESS }) }
 }
 
 /** "label [unit]" for headers and axes. */
