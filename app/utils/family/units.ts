@@ -64,8 +64,9 @@ export function lambdaQuantity(kind: string): Quantity {
   return { key: 'lambda', ...q }
 }
 
-/** A diagnostic by key (unknown keys keep their name, unit "1"). */
-export function diagnosticQuantity(key: string): Quantity {
+/** A diagnostic by key (σ_min by path kind; unknown keys keep their name, dimensionless). */
+export function diagnosticQuantity(key: string, kind?: string): Quantity {
+  if (key === 'sigmaMin') return sigmaMinQuantity(kind)
   return { key, ...(DIAGNOSTICS[key] ?? { label: key, unit: DIMENSIONLESS }) }
 }
 

@@ -4,10 +4,10 @@
  */
 import { describe, expect, it } from 'vitest'
 import { FamilyRunner, verifyFamilyPoints } from '../../../shared/families'
-import { FamilySettingsSchema } from '../../../shared/types/family'
+import type { FamilySettingsInput } from '../../../shared/types/family'
 import { fermatPair } from './fixtures'
 
-function runToEnd(settings: Parameters<typeof FamilySettingsSchema.parse>[0]) {
+function runToEnd(settings: FamilySettingsInput) {
   const r = new FamilyRunner(fermatPair(0), settings)
   while (!r.done) r.step({ points: 1000, ms: 60_000 })
   return r.result()

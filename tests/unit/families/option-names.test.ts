@@ -8,7 +8,7 @@ vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 import { findPatternExample } from '../../../shared/examples'
 import { FAMILY_OPTION_NAMES, FamilyRunner } from '../../../shared/families'
 import { analyzePattern } from '../../../shared/pattern/analyze'
-import { FamilySettingsSchema, parseFamilySettings } from '../../../shared/types/family'
+import { FamilySettingsSchema, parseFamilySettings, type FamilySettingsInput } from '../../../shared/types/family'
 import { ALLOW_SINGULAR_LABEL, defaultSetupForm, formToSettings, startRefusal } from '../../../app/utils/family/setup'
 import { fermatPair } from './fixtures'
 
@@ -26,7 +26,7 @@ function isSettingsKey(key: string): boolean {
 
 const weave = findPatternExample('three-line-weave')!.document // not rigid (the lines slide), see tests/unit/pattern
 
-function runToEnd(doc: Parameters<typeof analyzePattern>[0], settings: Parameters<typeof parseFamilySettings>[0]) {
+function runToEnd(doc: Parameters<typeof analyzePattern>[0], settings: FamilySettingsInput) {
   const r = new FamilyRunner(doc, settings)
   while (!r.done) r.step({ points: 1000, ms: 60_000 })
   return r.result()

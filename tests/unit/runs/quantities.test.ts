@@ -11,7 +11,7 @@ vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
 const { availableAxes } = await import('../../../app/utils/family/axes')
 const { buildRunCsv } = await import('../../../app/utils/family/export')
-const { residualQuantity, sigmaMinQuantity, STEP_SIZE } = await import('../../../app/utils/family/units')
+const { expectedDiagnostics, residualQuantity, sigmaMinQuantity, STEP_SIZE } = await import('../../../app/utils/family/units')
 
 /** "name [unit]" → [name, unit]. */
 const split = (s: string): [string, string] => { const m = /^(.*) \[([^\]]+)\]$/.exec(s)!; return [m[1]!, m[2]!] }
@@ -23,7 +23,9 @@ function allQuantities(): [string, string][] {
     for (const a of availableAxes(kind, ['v0', 'v1'], [])) out.push([a.label, a.unit])
     for (const q of [residualQuantity(kind), sigmaMinQuantity(kind), STEP_SIZE]) out.push([q.label, q.unit])
     const summary = { id: 1, name: 'r', pathKind: kind, status: 'complete' as const, verification: 'verified' as const, verificationReason: null, graphName: 'g', graphVersion: 1, appVersion: '0', createdAt: '2026-12-02T00:00:00.000Z' }
-    const header = buildRunCsv({ summary, settings: {}, points: [], specialPoints: [], exportedBy: '0' }).split('\n').find(l => l.startsWith('index,'))!
+    // one point recording every diagnostic of its kind, σ_min among them (as the server stores it)
+    const point = { index: 0, lambda: 0, residual: 0, specialKind: null, state: {}, diagnostics: Object.fromEntries([...expectedDiagnostics(kind), 'sigmaMin'].map(k => [k, 1])) }
+    const header = buildRunCsv({ summary, settings: {}, points: [point], specialPoints: [], exportedBy: '0' }).split('\n').find(l => l.startsWith('index,'))!
     for (const col of header.split(',').slice(1, -1)) out.push(split(col.replace(/^[^:]*: /, '')))
   }
   for (const plane of ['tau', 'alpha'] as const) for (const q of MAP_QUANTITIES) out.push(split(mapQuantityLabel(q, plane)))
@@ -41,6 +43,8 @@ describe('quantities', () => {
   })
 
   it('σ_min of a run and of a map have different names (different scalings)', () => {
+    const csv = allQuantities().filter(([name]) => name.startsWith('σ_min'))
+    expect(new Set(csv.map(([name, unit]) => `${name} [${unit}]`))).toEqual(new Set(['σ_min(F_u) of the drawing [1/length]', 'σ_min(F_u) of the phases [weight/rad]', 'σ_min(F_u)·ℓ̄ [dimensionless]', 'σ_min(F_u)/K̄ [dimensionless]']))
     const run = sigmaMinQuantity('shear'), map = split(mapQuantityLabel('sigmaMin', 'tau'))
     expect(run.unit).toBe('1/length')
     expect(map[1]).toBe('dimensionless')
