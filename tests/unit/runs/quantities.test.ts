@@ -24,7 +24,7 @@ function allQuantities(): [string, string][] {
     for (const q of [residualQuantity(kind), sigmaMinQuantity(kind), STEP_SIZE]) out.push([q.label, q.unit])
     const summary = { id: 1, name: 'r', pathKind: kind, status: 'complete' as const, verification: 'verified' as const, verificationReason: null, graphName: 'g', graphVersion: 1, appVersion: '0', createdAt: '2026-12-02T00:00:00.000Z' }
     // one point recording every diagnostic of its kind, σ_min among them (as the server stores it)
-    const point = { index: 0, lambda: 0, residual: 0, specialKind: null, state: {}, diagnostics: Object.fromEntries([...expectedDiagnostics(kind), 'sigmaMin'].map(k => [k, 1])) }
+    const point = { index: 0, lambda: 0, residual: 0, specialKind: null, state: { u: [] }, diagnostics: Object.fromEntries([...expectedDiagnostics(kind), 'sigmaMin'].map(k => [k, 1])) }
     const header = buildRunCsv({ summary, settings: {}, points: [point], specialPoints: [], exportedBy: '0' }).split('\n').find(l => l.startsWith('index,'))!
     for (const col of header.split(',').slice(1, -1)) out.push(split(col.replace(/^[^:]*: /, '')))
   }
