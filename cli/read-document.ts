@@ -1,6 +1,7 @@
 /** Reads a pattern document from a file for the CLI commands. */
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
+import { joinNegativeValues } from './args'
 import { parsePatternDocument, PatternParseError, type PatternDocument } from '../shared/types/pattern'
 
 /** The document, or the message to print (exit code 2) when the file is unreadable or invalid. */
@@ -37,7 +38,7 @@ export async function readCommandInput<O extends ParseArgsOptions>(
 ): Promise<{ doc: PatternDocument, values: Record<string, unknown> } | { exitCode: number }> {
   let parsed
   try {
-    parsed = parseArgs({ args, allowPositionals: true, options })
+    parsed = parseArgs({ args: joinNegativeValues(args, options ?? {}), allowPositionals: true, options })
   } catch (e) {
     console.error(`wingfold ${command}: ${(e as Error).message}`)
     return { exitCode: 2 }

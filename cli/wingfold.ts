@@ -44,6 +44,12 @@ export async function main(argv: string[]): Promise<number> {
   return (await load()).run(rest)
 }
 
+// a reader that stops early (`… | head`) closes the pipe: end quietly instead of crashing with EPIPE
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE') process.exit(0)
+  throw e
+})
+
 main(process.argv.slice(2)).then(
   (code) => { process.exitCode = code },
   (err: unknown) => { console.error(err instanceof Error ? err.stack ?? err.message : String(err)); process.exitCode = 2 },

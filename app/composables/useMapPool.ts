@@ -12,7 +12,7 @@ export function machineWorkers(): number {
 /**
  * A pool of map workers (workers/map.worker.ts) for the calling component: the spine runs on one
  * worker, then rows are handed out one at a time to `size` workers (default and maximum: one per
- * core). `cancel()` terminates the workers; the rows finished so far are kept in the result
+ * core), then one worker fills what rows alone cannot reach (shared/maps/fill.ts). `cancel()` terminates the workers; the rows finished so far are kept in the result
  * (`missingRows` lists the others). Workers exist only in the browser and end on unmount.
  */
 export function useMapPool() {
@@ -66,7 +66,10 @@ export function useMapPool() {
         }
       }
       await Promise.race([Promise.all(workers.map(loop)), cancelWait])
-      return { map: assembleMap(spine, done), wallMs: performance.now() - t0, workers: n }
+      let map = assembleMap(spine, done)
+      // then along columns and from solved neighbours (one worker; a cancel keeps the rows as they are)
+      if (!cancelled) map = (await Promise.race([workers[0]!.api.fill(doc, spine.settings, map), cancelWait.then(() => undefined)])) ?? map
+      return { map, wallMs: performance.now() - t0, workers: n }
     } finally {
       running.value = false
       terminate()

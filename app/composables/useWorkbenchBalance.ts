@@ -1,3 +1,4 @@
+import { formatNumber } from '#shared/format'
 import { useWorkbenchStore } from '~/stores/workbench'
 import type { Vec } from '~/utils/workbench/view'
 
@@ -28,8 +29,8 @@ export function useWorkbenchBalance() {
       if (r.document.rotation && !store.doc.rotation) store.doc.rotation = r.document.rotation
       failed.value = !r.converged
       note.value = r.converged
-        ? `Balanced in ${r.iterations} steps; residual ${r.residualNorm.toExponential(1)}.`
-        : `Not balanced after ${r.iterations} steps (residual ${r.residualNorm.toExponential(1)}): ${r.reason ?? 'the solve did not converge'}.`
+        ? `Balanced in ${r.iterations} steps; residual max|B| = ${formatNumber(r.residualNorm, 2)}.`
+        : `Not balanced after ${r.iterations} steps (residual max|B| = ${formatNumber(r.residualNorm, 2)}): ${r.reason ?? 'the solve did not converge'}.`
     }
     catch (e) {
       failed.value = true

@@ -1,6 +1,8 @@
 import { defineStore } from 'pinia'
 import type { FamilyBatch } from '#shared/families/runner'
-import type { RunBatchPayload, RunCreatePayload, RunListQuery, RunSummary } from '#shared/types/runs'
+import type { RUN_END_STATES, RunBatchPayload, RunCreatePayload, RunListQuery, RunSummary } from '#shared/types/runs'
+
+type RunEndState = typeof RUN_END_STATES[number]
 
 /**
  * Runs of the current project: the library list with its filters, and saving a live run as it
@@ -29,8 +31,8 @@ export const useRunsStore = defineStore('runs', () => {
     return $fetch<{ pointCount: number, specialCount: number }>(`/api/runs/${runId}/points`, { method: 'POST', body })
   }
 
-  /** Mark a run complete, cancelled or failed (the server then re-checks it). */
-  function finish(runId: number, status: 'complete' | 'cancelled' | 'failed', reason = '') {
+  /** Mark a run complete, stopped, cancelled or failed (the server then re-checks it). */
+  function finish(runId: number, status: RunEndState, reason = '') {
     return $fetch<RunSummary>(`/api/runs/${runId}/finish`, { method: 'POST', body: { status, reason } })
   }
 

@@ -17,6 +17,9 @@ export type WorkbenchTool = typeof WORKBENCH_TOOLS[number]
 const HISTORY_LIMIT = 200
 
 /** A new, empty torus pattern on the unit square lattice. */
+/** What the app asks before an unsaved drawing would be lost. */
+export const UNSAVED_DRAWING_MESSAGE = 'The drawing has changes that are not saved as a version; they will be lost. Continue anyway?'
+
 export function blankPattern(name = 'Untitled pattern', space: 'torus' | 'plane' = 'torus'): PatternDocument {
   return {
     format: PATTERN_FORMAT, version: PATTERN_VERSION, name, space,

@@ -2,10 +2,12 @@
  * `wingfold follow FILE --path KIND --to VALUE [--json] [--max-points N] [...]`: follow a family
  * of the pattern with the continuation engine and print its special points (all points with --json).
  */
+import { formatNumber } from '../../shared/format'
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
 import { FamilyRunner } from '../../shared/families/runner'
 import { FAMILY_PATH_KINDS, type FamilyPath, type FamilySettingsInput } from '../../shared/types/family'
+import { joinNegativeValues } from '../args'
 import { readPatternFile } from '../read-document'
 
 export const summary = 'FILE --path KIND --to X  follow a family (shear, stretch, angle, alpha1, …); --json for all points'
@@ -19,7 +21,16 @@ const USAGE = `Usage: wingfold follow FILE --path KIND --to X [--json] [--max-po
   --edges ID,ID              for --path weight-scale
   --settings FILE            full family settings (JSON) instead of the options above`
 
+const OPTIONS = {
+  'path': { type: 'string' }, 'to': { type: 'string' }, 'json': { type: 'boolean' }, 'max-points': { type: 'string' },
+  'target': { type: 'string' }, 'points': { type: 'string' }, 'rotate': { type: 'string' }, 'compensate': { type: 'string' },
+  'direction': { type: 'string' }, 'edges': { type: 'string' }, 'settings': { type: 'string' },
+} as const
+
 const nums = (s: string): number[] => s.split(',').map(Number)
+
+/** Relative precision reached in λ, as printed: "exact" for 0, else two digits. */
+const formatPrecision = (p: number): string => p === 0 ? 'exact' : formatNumber(p, 2)
 
 /** The path object from the command-line options. */
 function pathFrom(kind: string, v: Record<string, string | undefined>): FamilyPath {
@@ -33,18 +44,11 @@ function pathFrom(kind: string, v: Record<string, string | undefined>): FamilyPa
   }
 }
 
-/** Runs the command; returns the exit code (0 finished, 1 refused or failed run, 2 bad usage). */
+/** Runs the command; returns the exit code (0 finished, 1 refused, stopped (no convergence) or failed run, 2 bad usage). */
 export async function run(args: string[]): Promise<number> {
   let parsed
   try {
-    parsed = parseArgs({
-      args, allowPositionals: true,
-      options: {
-        'path': { type: 'string' }, 'to': { type: 'string' }, 'json': { type: 'boolean' }, 'max-points': { type: 'string' },
-        'target': { type: 'string' }, 'points': { type: 'string' }, 'rotate': { type: 'string' }, 'compensate': { type: 'string' },
-        'direction': { type: 'string' }, 'edges': { type: 'string' }, 'settings': { type: 'string' },
-      },
-    })
+    parsed = parseArgs({ args: joinNegativeValues(args, OPTIONS), allowPositionals: true, options: OPTIONS })
   } catch (e) {
     console.error(`wingfold follow: ${(e as Error).message}\n${USAGE}`)
     return 2
@@ -77,7 +81,7 @@ export async function run(args: string[]): Promise<number> {
     const pts = r.branch.points
     console.log(`${r.settings.path.kind}: ${pts.length} points, λ from ${pts[0]?.lambda ?? 'n/a'} to ${pts.at(-1)?.lambda ?? 'n/a'}; ${r.branch.finishReason ?? r.status}`)
     if (r.startNote) console.log(`note: ${r.startNote}`)
-    for (const s of r.branch.specialPoints) console.log(`  ${s.kind.padEnd(18)} λ = ${s.lambda.toPrecision(12)}  ${s.label}${s.located ? '' : ' (not located to tolerance)'}`)
+    for (const s of r.branch.specialPoints) console.log(`  ${s.kind.padEnd(18)} λ = ${s.lambda.toPrecision(12)}  ${s.label}; precision ${formatPrecision(s.precision)}${s.located ? '' : ` (not located to the tolerance ${r.settings.stop.locateTolerance})`}`)
     if (r.branch.specialPoints.length === 0) console.log('  no special points')
   }
   return r.status === 'finished' ? 0 : 1

@@ -95,6 +95,8 @@ export const runs = sqliteTable('runs', {
    * shortest edges, as published); null for rows verified before it (vertex sums over all edges).
    */
   verticalBalance: text('vertical_balance'),
+  /** Why the run ended (the reason given with its final status). */
+  finishReason: text('finish_reason'),
   appVersion: text('app_version').notNull(),
   authorId: integer('author_id').references(() => users.id, { onDelete: 'set null' }),
   parentRunId: integer('parent_run_id'),

@@ -4,6 +4,7 @@
  * same core (shared/maps/verify.ts) at a seeded sample of solved cells; a map with any offending
  * cell, or a grid that does not match its settings, is stored as "rejected" with the reason.
  */
+import { formatNumber } from '#shared/format'
 import type { H3Event } from 'h3'
 import { desc, eq } from 'drizzle-orm'
 import { sampleCells, verifyMapCells } from '#shared/maps/verify'
@@ -41,7 +42,7 @@ export function checkPostedMap(doc: PatternDocument, settings: MapSettings, resu
   if (bad) return { verification: 'rejected', reason: `cell (${bad.i}, ${bad.j}) is not at its grid point` }
   const v = verifyMapCells(doc, settings, sampleCells(cells, MAP_VERIFY_SAMPLE), MAP_RESIDUAL_TOLERANCE)
   if (!v.verified) return { verification: 'rejected', reason: `${v.offending.length} of ${v.checked} sampled cells fail: ${v.offending.slice(0, 3).map(o => `(${o.i}, ${o.j}) ${o.reason}`).join('; ')}` }
-  return { verification: 'verified', reason: `${v.checked} sampled cells re-evaluated, max|F| = ${v.maxResidual.toExponential(2)}` }
+  return { verification: 'verified', reason: `${v.checked} sampled cells re-evaluated, max|F| = ${formatNumber(v.maxResidual)}` }
 }
 
 function summarySelect() {

@@ -58,7 +58,7 @@ export function toRunSummary(row: SummaryRow): RunSummary {
   const r = row.run
   return {
     id: r.id, projectId: r.projectId, projectName: row.projectName, graphId: row.graphId, graphName: row.graphName, graphVersion: row.graphVersion,
-    name: r.name, pathKind: r.pathKind, status: r.status, verification: r.verification, verificationReason: r.verificationReason, verticalBalance: r.verticalBalance,
+    name: r.name, pathKind: r.pathKind, status: r.status, verification: r.verification, verificationReason: r.verificationReason, verticalBalance: r.verticalBalance, finishReason: r.finishReason ?? null,
     pointCount: r.pointCount, specialCount: r.specialCount, authorId: r.authorId, authorName: row.authorName ?? null,
     parentRunId: r.parentRunId, restartPointIndex: r.restartPointIndex, appVersion: r.appVersion,
     createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),

@@ -4,9 +4,11 @@
  * - fold: the λ-component of the unit tangent changes sign (Illinois, then Newton on the
  *   minimally augmented system, fold-refine.ts);
  * - branch point: the sign of det [[F_u, F_λ], [tᵀ]] changes (Illinois on the determinant);
- * - rigidity loss: for symmetric F_u, the number of negative LDLᵀ pivots changes by an EVEN
- *   nonzero amount — eigenvalues crossing zero together leave every determinant sign unchanged
- *   (bisection on the count); odd changes are folds or branch points and are reported as such;
+ * - rigidity loss: for symmetric F_u, the number of negative LDLᵀ pivots changes by k ≥ 2 —
+ *   k eigenvalues cross zero together, F_u has a kernel of dimension k there (bisection on the
+ *   count). Named the same for every k: for even k every determinant sign stays unchanged; for odd
+ *   k the bordered determinant changes sign too and no separate branch point is reported (the
+ *   label says so). A change by 1 is a fold or a branch point, reported as such;
  * - problem events, milestones, bounds on λ and u, and the return to the start (closed loop).
  * Findings come back ordered along the step.
  */
@@ -15,6 +17,7 @@ import { analysePoint, type PointAnalysis } from './analysis'
 import type { BorderedSolver } from './bordered'
 import { locateInSegment, type LocateContext, type Located, type Segment, type Watch } from './locate'
 import type { ResolvedOptions } from './options'
+import type { EventLimit } from './types'
 import { axpy, dot, normInf, normalized, norm2, probeVector } from './vectors'
 
 /** A located special point inside a step. */
@@ -27,6 +30,8 @@ export interface Finding {
   terminal: boolean
   /** Ends the run when options.stopAtSpecialPoint is set. */
   stopsOnRequest: boolean
+  /** Where the event really is, beyond the located crossing (ProblemEvent.limit). */
+  limit?: EventLimit
 }
 
 type Ctx = LocateContext & { solverT: BorderedSolver; options: ResolvedOptions }
@@ -80,23 +85,34 @@ export function detectInStep(ctx: Ctx, seg: Segment, first: { y: Float64Array; t
   const locate = (w: Watch): Located => locateInSegment(ctx, seg, w)
   const crossing = (fn: (a: PointAnalysis) => number): boolean => changes(fn(seg.a0), fn(seg.a1))
 
+  const neg0 = t0.negativeEigenvalues, neg1 = t1.negativeEigenvalues
+  const k = problem.symmetric && neg0 !== undefined && neg1 !== undefined ? Math.abs(neg1 - neg0) : 0
   if (o.detectFolds && changes(t0.tangentLambda, t1.tangentLambda)) out.push(foldFinding(ctx, seg))
-  if (o.detectBranchPoints && t0.borderedDetSign * t1.borderedDetSign < 0) {
+  if (o.detectBranchPoints && t0.borderedDetSign * t1.borderedDetSign < 0 && !(o.detectRigidityLoss && k >= 2)) {
     const ref = seg.a0.detLogAbs
     const located = locate({ type: 'continuous', value: (a) => a.tests.borderedDetSign * Math.exp(Math.min(600, a.detLogAbs - ref)) })
     out.push({ kind: 'branch point', label: 'branch point: two branches cross', located, kernel: branchKernel(located.a), terminal: false, stopsOnRequest: true })
   }
-  const neg0 = t0.negativeEigenvalues, neg1 = t1.negativeEigenvalues
-  if (o.detectRigidityLoss && problem.symmetric && neg0 !== undefined && neg1 !== undefined && neg0 !== neg1 && (neg1 - neg0) % 2 === 0) {
+  if (o.detectRigidityLoss && k >= 2) {
     const located = locate({ type: 'predicate', before: (a) => a.tests.negativeEigenvalues === neg0 })
+    const odd = k % 2 === 1 ? '; the bordered determinant changes sign too, so branches may cross here' : ''
     out.push({
-      kind: 'rigidity loss', label: `rigidity loss: ${Math.abs(neg1 - neg0)} eigenvalues of F_u cross zero together`,
+      kind: 'rigidity loss',
+      label: `rigidity loss: ${k} eigenvalues of F_u cross zero together (kernel dimension ${k}, negative eigenvalues ${neg0} → ${neg1}${odd})`,
       located, kernel: located.a.sigmaVector, terminal: false, stopsOnRequest: true,
     })
   }
   ;(problem.events ?? []).forEach((e, i) => {
     if (!crossing((a) => a.tests.events[i]!)) return
-    out.push({ kind: e.kind, label: e.label, located: locate({ type: 'continuous', value: (a) => a.tests.events[i]! }), terminal: e.terminal ?? true, stopsOnRequest: true })
+    const located = locate({ type: 'continuous', value: (a) => a.tests.events[i]! })
+    const f: Finding = { kind: e.kind, label: e.label, located, terminal: e.terminal ?? true, stopsOnRequest: true }
+    if (e.limit) {
+      const limit = e.limit(located.a.y.subarray(0, n), located.a.y[n]!)
+      // without a limit the crossing is only the stop distance: not the event's location
+      if (limit) f.limit = limit
+      else f.located = { ...located, located: false }
+    }
+    out.push(f)
   })
   for (const m of o.milestones) {
     const fn = (a: PointAnalysis): number => a.y[n]! - m

@@ -37,6 +37,8 @@ export class Continuation {
   readonly specialPoints: SpecialPoint[] = []
   done = false
   started = false
+  /** True when the run ended because the corrector kept failing (step size below minStep). */
+  stalled = false
   finishReason?: string
   readonly options: ResolvedOptions
   readonly stats = { accepted: 0, rejected: 0, fullBorderedSolves: 0 }
@@ -80,10 +82,10 @@ export class Continuation {
     if (!o.allowSingularStart) {
       const J = jacobianAt(problem, r.y)
       const fu = solver.factorFu(J)
-      if (!fu.ok) return this.refuse(`F_u is singular at the start point (${fu.reason}); set allowSingularStart to start anyway`)
+      if (!fu.ok) return this.refuse(`F_u is singular at the start point (${fu.reason}); to start anyway, set ${this.optionName('allowSingularStart')} to true`)
       const sigma = estimateSigmaMin(fu.factor, problem.symmetric === true, o.sigmaIterations).sigma
       const scale = Math.max(1, normInf(J.Fu.values.subarray(0, J.Fu.count)))
-      if (sigma <= o.singularTolerance * scale) return this.refuse(`F_u is nearly singular at the start point (σ_min ≈ ${sigma.toExponential(2)}); set allowSingularStart to start anyway`)
+      if (sigma <= o.singularTolerance * scale) return this.refuse(`F_u is nearly singular at the start point (σ_min ≈ ${sigma.toExponential(2)}); to start anyway, set ${this.optionName('allowSingularStart')} to true`)
     }
     let t: Float64Array
     if (tangent) {
@@ -102,6 +104,11 @@ export class Continuation {
     this.first = { y: r.y.slice(), t: an.a.t.slice() }
     this.started = true
     this.pushPoint(an.a, 0, r.iterations, r.residualNorm)
+  }
+
+  /** An option as the caller's users type it (options.optionNames). */
+  private optionName(k: keyof NonNullable<ContinuationOptions['optionNames']>): string {
+    return this.options.optionNames[k] ?? k
   }
 
   private refuse(reason: string): void {
@@ -152,6 +159,14 @@ export class Continuation {
       iterations: f.located.iterations,
     }
     if (f.kernel) sp.kernel = Array.from(f.kernel)
+    if (f.limit) {
+      sp.stoppedAt = { lambda: sp.lambda }
+      sp.lambda = f.limit.lambda
+      sp.u = f.limit.u
+      sp.precision = f.limit.precision
+      sp.located = f.limit.located
+      if (f.limit.label) sp.label = f.limit.label
+    }
     this.specialPoints.push(sp)
     return sp
   }
@@ -160,7 +175,9 @@ export class Continuation {
     this.stats.rejected++
     this.ds *= this.options.shrinkFactor
     if (this.ds < this.options.minStep) {
-      this.finish(`step size fell below minStep (${this.options.minStep}); last failure: ${reason}`)
+      this.stalled = true
+      const l = this.cur.y[this.problem.n]!
+      this.finish(`no convergence past λ = ${l.toPrecision(10)} (step size fell below ${this.optionName('minStep')} = ${this.options.minStep}; last failure: ${reason})`)
       return { status: 'finished', points: [], specialPoints: [], stepSize: this.ds, reason: this.finishReason }
     }
     return { status: 'rejected', points: [], specialPoints: [], stepSize: this.ds, reason }
@@ -184,7 +201,7 @@ export class Continuation {
     const an = analysePoint(problem, solver, r.y, c, o.sigmaIterations, a0.marginVector ?? a0.sigmaVector)
     if (!an.ok) return this.reject(an.reason)
     const turn = Math.acos(Math.max(-1, Math.min(1, dot(a0.t, an.a.t))))
-    if (turn > o.maxTurnAngle) return this.reject(`tangent turned by ${turn.toFixed(3)} rad > maxTurnAngle`)
+    if (turn > o.maxTurnAngle) return this.reject(`tangent turned by ${turn.toFixed(3)} rad, more than the ${o.maxTurnAngle} rad allowed in one step`)
 
     const findings = detectInStep(this.ctx, { y0: a0.y, c, ds, a0, a1: an.a }, this.first, this.points.length)
     const newPoints: ContinuationPoint[] = []
@@ -197,10 +214,11 @@ export class Continuation {
         newPoints.push(this.pushPoint(f.located.a, (f.located.theta - thetaPrev) * ds, f.located.newtonIterations, f.located.residualNorm))
         thetaPrev = f.located.theta
       }
-      newSpecial.push(this.pushSpecial(f))
+      const sp = this.pushSpecial(f)
+      newSpecial.push(sp)
       if (terminal) {
         this.cur = f.located.a
-        this.finish(`stopped at ${f.kind}: ${f.label}`)
+        this.finish(`stopped at ${f.kind}: ${sp.label}`)
         return { status: 'finished', points: newPoints, specialPoints: newSpecial, stepSize: this.ds, reason: this.finishReason }
       }
     }
@@ -208,14 +226,14 @@ export class Continuation {
     newPoints.push(this.pushPoint(an.a, (1 - thetaPrev) * ds, r.iterations, r.residualNorm))
     this.prevY = a0.y
     this.cur = an.a
-    if (this.points.length >= o.maxPoints) this.finish(`reached maxPoints (${o.maxPoints})`)
+    if (this.points.length >= o.maxPoints) this.finish(`reached ${this.optionName('maxPoints')} (${o.maxPoints})`)
     this.stats.fullBorderedSolves = this.solver.fullFactorisations
     return { status: this.done ? 'finished' : 'accepted', points: newPoints, specialPoints: newSpecial, stepSize: this.ds, reason: this.finishReason }
   }
 
   /** The branch as plain data (arrays are the live ones; copy before mutating). */
   result(): BranchResult {
-    return { branch: this.branch, points: this.points, specialPoints: this.specialPoints, finishReason: this.finishReason, started: this.started, stats: { ...this.stats } }
+    return { branch: this.branch, points: this.points, specialPoints: this.specialPoints, finishReason: this.finishReason, started: this.started, ...(this.stalled ? { stalled: true } : {}), stats: { ...this.stats } }
   }
 }
 

@@ -71,7 +71,15 @@ export interface ContinuationOptions {
   borderingTolerance?: number
   /** Sparse solver options (method, ordering, …). */
   solver?: SolverOptions
+  /**
+   * How the caller's users spell the options that messages name (e.g. a settings file's
+   * `step.min` for minStep). Default: the option names themselves.
+   */
+  optionNames?: OptionNames
 }
+
+/** Options the engine's messages name. */
+export type OptionNames = Partial<Record<'allowSingularStart' | 'minStep' | 'maxPoints', string>>
 
 /** Defaults of {@link ContinuationOptions}. */
 export const CONTINUATION_DEFAULTS = {
@@ -82,7 +90,7 @@ export const CONTINUATION_DEFAULTS = {
   stopAtSpecialPoint: false, detectFolds: true, detectBranchPoints: true, detectRigidityLoss: true,
   locateTolerance: 1e-9, maxLocateIterations: 60, closedLoopTolerance: 1e-6,
   allowSingularStart: false, singularTolerance: 1e-10, sigmaIterations: 5, borderingTolerance: 1e-9,
-  solver: {} as SolverOptions,
+  solver: {} as SolverOptions, optionNames: {} as OptionNames,
 } satisfies Required<ContinuationOptions>
 
 /** Options with every default filled in. */

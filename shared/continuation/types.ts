@@ -15,6 +15,24 @@ export interface ProblemEvent {
   fn(u: Float64Array, lambda: number): number
   /** Stop the run when this event is found. Default true (the construction stops working there). */
   terminal?: boolean
+  /**
+   * Where the event really happens when `fn` only crosses zero at a stop distance before it (an
+   * edge collapse: `fn` is length − tolerance, the limit is length 0). Called with the located
+   * crossing; undefined = report the crossing itself, marked as not located.
+   */
+  limit?(u: Float64Array, lambda: number): EventLimit | undefined
+}
+
+/** The limit of an event beyond the crossing of its test function (see {@link ProblemEvent.limit}). */
+export interface EventLimit {
+  lambda: number
+  /** The state at the limit (it may lie where F itself is undefined, e.g. a zero-length edge). */
+  u: number[]
+  /** |Δλ| / max(1, |λ|) of the last refinement. */
+  precision: number
+  located: boolean
+  /** Replaces the event's label (e.g. names the edge). */
+  label?: string
 }
 
 /**
@@ -137,6 +155,11 @@ export interface SpecialPoint {
   located: boolean
   /** Refinement iterations used. */
   iterations: number
+  /**
+   * For an event located at its limit (a collapse): the point where the run stopped, i.e. where
+   * the test function crossed zero (λ there; u and tangent of the last accepted point).
+   */
+  stoppedAt?: { lambda: number }
 }
 
 /** Identity of a branch and, for a branch produced by switching, where it came from. */
@@ -167,6 +190,8 @@ export interface BranchResult {
   finishReason?: string
   /** False if the start was refused. */
   started: boolean
+  /** Set when the run ended because the corrector kept failing: the branch goes on, unfollowed. */
+  stalled?: boolean
   /** Counts for reporting. */
   stats: { accepted: number; rejected: number; fullBorderedSolves: number }
 }

@@ -9,6 +9,7 @@ import { compilePattern, type PatternModel } from '../pattern/model'
 import { solvePhases } from '../pattern/phase-solve'
 import { LATTICE_PATH_KINDS, PHASE_PATH_KINDS, type FamilySettings } from '../types/family'
 import type { PatternDocument } from '../types/pattern'
+import { collapseLimitResidual } from './collapse-limit'
 import { latticePath } from './lattice-paths'
 import { phasePath, phaseProblem } from './phase'
 import { planeWingProblem } from './plane'
@@ -29,14 +30,23 @@ export interface FamilySetup {
 const isLattice = (k: string): boolean => (LATTICE_PATH_KINDS as readonly string[]).includes(k)
 const isPhase = (k: string): boolean => (PHASE_PATH_KINDS as readonly string[]).includes(k)
 
+/** The problem of a family, and for drawings max|residual| of a collapse limit (collapse-limit.ts). */
+export interface FamilyProblem {
+  problem: ContinuationProblem
+  lambda0: number
+  unknowns: 'drawing' | 'phase'
+  collapseResidual?: (u: Float64Array, lambda: number) => number
+}
+
 /** The problem alone (no start solve): used by the runner and by point verification. */
-export function familyProblem(doc: PatternDocument, settings: FamilySettings, model = compilePattern(doc)): { problem: ContinuationProblem; lambda0: number; unknowns: 'drawing' | 'phase' } {
+export function familyProblem(doc: PatternDocument, settings: FamilySettings, model = compilePattern(doc)): FamilyProblem {
   const kind = settings.path.kind
-  const ev = { collapseTolerance: settings.stop.collapseTolerance, orderFlip: settings.stop.orderFlip, terminal: settings.stop.stopAtEvents }
+  const ev = { collapseTolerance: settings.stop.collapseTolerance, orderFlip: settings.stop.orderFlip, terminal: settings.stop.stopAtEvents, locateTolerance: settings.stop.locateTolerance }
   if (isLattice(kind)) {
     if (model.space !== 'torus') throw new Error(`families: the ${kind} path needs a torus pattern`)
     const path = latticePath(settings.path, model.lattice)
-    return { problem: torusLatticeProblem(model, path, ev).problem, lambda0: path.lambda0, unknowns: 'drawing' }
+    const t = torusLatticeProblem(model, path, ev)
+    return { problem: t.problem, lambda0: path.lambda0, unknowns: 'drawing', collapseResidual: (u, l) => collapseLimitResidual(model, t.drawingAt, t.contracted, u, l) }
   }
   if (isPhase(kind)) {
     if (model.space !== 'torus' && (kind === 'alpha1' || kind === 'alpha2' || kind === 'alpha-line')) throw new Error(`families: the ${kind} path needs a torus pattern`)
@@ -44,7 +54,15 @@ export function familyProblem(doc: PatternDocument, settings: FamilySettings, mo
     return { problem: phaseProblem(model, path).problem, lambda0: path.lambda0, unknowns: 'phase' }
   }
   if (settings.path.kind !== 'wing-rotation') throw new Error(`families: unknown path kind '${kind}'`)
-  return { problem: planeWingProblem(model, settings.path.rotate, settings.path.compensate, ev).problem, lambda0: 0, unknowns: 'drawing' }
+  const w = planeWingProblem(model, settings.path.rotate, settings.path.compensate, ev)
+  return { problem: w.problem, lambda0: 0, unknowns: 'drawing', collapseResidual: (u, l) => collapseLimitResidual(model, w.drawingAt, w.contracted, u, l) }
+}
+
+/** The engine options its messages name, as a family's settings file (and the setup form) spell them. */
+export const FAMILY_OPTION_NAMES = {
+  allowSingularStart: 'allowSingularStart (form: “start even if the start is not rigid”, under Advanced)',
+  minStep: 'step.min (form: “Smallest step”)',
+  maxPoints: 'stop.maxPoints (form: “Most points”)',
 }
 
 /** Engine options from the settings; λ is bounded on the side of the target. */
@@ -54,6 +72,9 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
   const o: ContinuationOptions = {
     direction,
     maxPoints: settings.stop.maxPoints,
+    // messages name the settings keys (and the form field) a user can change
+    optionNames: FAMILY_OPTION_NAMES,
+    ...(settings.allowSingularStart ? { allowSingularStart: true } : {}),
     stopAtSpecialPoint: settings.stop.stopAtSpecialPoint,
     locateTolerance: settings.stop.locateTolerance,
     // a given max (or min) below (above) the default first step moves the first step with it

@@ -7,6 +7,7 @@
 import type { ProblemEvent } from '../continuation/types'
 import { edgeLengths, orderMargins } from '../pattern/geometry'
 import type { Lattice, PatternModel } from '../pattern/model'
+import { collapseLimit, type ContractedResidual } from './collapse-limit'
 import { latticeShapeArea } from './lattice-paths'
 
 /** Maps the engine's (u, λ) to the full drawing (positions 2V, the lattice, and the model when the wings move). */
@@ -25,16 +26,34 @@ export function orderMargin(m: PatternModel, p: Float64Array, lat: Lattice): num
   return Math.min(...orderMargins(m, p, lat))
 }
 
-/** The drawing events of a family: collapse, optionally order flip, and lattice degeneracy when the lattice moves. */
+/**
+ * How to find where a collapse really is: the family's residual with the collapsing edge's
+ * direction free (collapse-limit.ts), and the locate tolerance.
+ */
+export interface CollapseLimitOptions { contracted: ContractedResidual; locateTolerance: number }
+
+/**
+ * The drawing events of a family: collapse, optionally order flip, and lattice degeneracy when
+ * the lattice moves. With `limit`, a collapse is reported where the edge reaches length 0 and
+ * the tolerance only says where the run stops.
+ */
 export function drawingEvents(
   m: PatternModel, at: DrawingAt,
-  o: { collapseTolerance: number; orderFlip: boolean; terminal: boolean; latticeMoves: boolean },
+  o: { collapseTolerance: number; orderFlip: boolean; terminal: boolean; latticeMoves: boolean; limit?: CollapseLimitOptions },
 ): ProblemEvent[] {
   const ev: ProblemEvent[] = []
   if (m.nEdges > 0) {
+    const stop = `the run stops once an edge is shorter than ${o.collapseTolerance} × the mean edge length`
+    const lim = o.limit
     ev.push({
-      kind: 'collapse', label: `an edge becomes shorter than ${o.collapseTolerance} × the mean edge length`, terminal: o.terminal,
+      kind: 'collapse', label: lim ? `an edge reaches length 0 (${stop}; its length 0 was not located)` : `an edge becomes shorter than ${o.collapseTolerance} × the mean edge length`, terminal: o.terminal,
       fn: (u, l) => { const d = at(u, l); return collapseMargin(d.model ?? m, d.p, d.lattice, o.collapseTolerance) },
+      ...(lim ? {
+        limit: (u: Float64Array, l: number) => {
+          const r = collapseLimit(m, at, lim.contracted, u, l, lim.locateTolerance)
+          return r && { ...r, label: `${r.label} (${stop})` }
+        },
+      } : {}),
     })
   }
   if (o.orderFlip) {

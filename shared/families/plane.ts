@@ -16,6 +16,7 @@ import { TripletBuilder } from '../linalg/triplets'
 import { balanceJacobian, balanceResidual } from '../pattern/balance'
 import { edgeVectors, meanEdgeLength, minEdgeLength, totalLength } from '../pattern/geometry'
 import type { PatternModel } from '../pattern/model'
+import { contractedBalance, type ContractedResidual } from './collapse-limit'
 import { drawingEvents, type DrawingAt } from './events'
 import { conditionEvents } from './walls'
 import { addTrailingBlock } from './reduce'
@@ -35,7 +36,7 @@ function wingSet(m: PatternModel, ids: string[], name: string): number[] {
 }
 
 /** The continuation problem of a wing rotation; u's last component is the compensating angle μ. */
-export function planeWingProblem(m: PatternModel, rotate: string[], compensate: string[], ev: DrawingEventOptions): { problem: ContinuationProblem; drawingAt: DrawingAt } {
+export function planeWingProblem(m: PatternModel, rotate: string[], compensate: string[], ev: DrawingEventOptions): { problem: ContinuationProblem; drawingAt: DrawingAt; contracted: ContractedResidual } {
   if (m.space !== 'plane') throw new Error('families: wing rotation needs a plane pattern')
   const S = wingSet(m, rotate, 'rotate'), T = wingSet(m, compensate, 'compensate')
   if (S.some(j => T.includes(j))) throw new Error('families: a wing cannot be in both rotate and compensate')
@@ -78,6 +79,11 @@ export function planeWingProblem(m: PatternModel, rotate: string[], compensate: 
     const x = edgeVectors(m, p, lat)
     return x[2 * e0]! * d0[0]! + x[2 * e0 + 1]! * d0[1]! - l0
   }
+  const contracted: ContractedResidual = (u, l, e, d, out) => {
+    const x = drawingAt(u, l)
+    out.set(contractedBalance(x.model!, x.p, lat, e, d).subarray(2))
+    out[n - 1] = scaleRow(x.p)
+  }
   const problem: ContinuationProblem = {
     n,
     symmetric: false,
@@ -105,7 +111,15 @@ export function planeWingProblem(m: PatternModel, rotate: string[], compensate: 
       Flambda.set(colL.subarray(2), 0)
       return { Fu: b.build(), Flambda }
     },
-    events: [...drawingEvents(m, drawingAt, { ...ev, latticeMoves: false }), ...conditionEvents(m, drawingAt, { terminal: false, walls: false, planeRankTolerance: 1e-7 })],
+    events: [...drawingEvents(m, drawingAt, {
+      ...ev, latticeMoves: false,
+      ...(ev.locateTolerance !== undefined ? {
+        limit: {
+          locateTolerance: ev.locateTolerance,
+          contracted,
+        },
+      } : {}),
+    }), ...conditionEvents(m, drawingAt, { terminal: false, walls: false, planeRankTolerance: 1e-7 })],
     // F_u is unsymmetric here (the μ column, the scale row): σ_min(F_u)·ℓ̄, dimensionless
     sigmaScale(u, l) { return meanEdgeLength(m, drawingAt(u, l).p, lat) },
     diagnostics(u, l) {
@@ -113,5 +127,5 @@ export function planeWingProblem(m: PatternModel, rotate: string[], compensate: 
       return { totalLength: totalLength(m, p, lat), minEdgeRatio: minEdgeLength(m, p, lat) / meanEdgeLength(m, p, lat), compensateAngle: u[n - 1]! }
     },
   }
-  return { problem, drawingAt }
+  return { problem, drawingAt, contracted }
 }

@@ -4,11 +4,12 @@
  * and the tests use it. A cancelled run, or a run where a step throws, ends with every point
  * computed so far and the reason.
  */
-import { createContinuation, type Continuation } from '../continuation/engine'
+import type { Continuation } from '../continuation/engine'
 import type { BranchResult, ContinuationPoint, ContinuationStart, SpecialPoint } from '../continuation/types'
 import { parseFamilySettings, type FamilySettings, type FamilySettingsInput } from '../types/family'
 import type { PatternDocument } from '../types/pattern'
 import { setupFamily, type FamilySetup } from './build'
+import { createFamilyRun, NO_UNKNOWNS_NOTE, type PathOnlyRun } from './path-only'
 
 /** Batch limits: a batch ends after `points` new points or `ms` milliseconds, whichever first. */
 export interface BatchOptions {
@@ -40,8 +41,11 @@ export interface FamilyBatch {
   finishReason?: string
 }
 
-/** How a run ended. */
-export type FamilyStatus = 'running' | 'paused' | 'finished' | 'cancelled' | 'failed' | 'refused'
+/**
+ * How a run ended. 'stopped': the corrector kept failing (no convergence past the last point), so
+ * the family was not followed to its end; not a success.
+ */
+export type FamilyStatus = 'running' | 'paused' | 'finished' | 'stopped' | 'cancelled' | 'failed' | 'refused'
 
 /** The whole run as plain data. */
 export interface FamilyRunResult {
@@ -66,7 +70,7 @@ const tick = (): Promise<void> => new Promise(resolve => setTimeout(resolve, 0))
 export class FamilyRunner {
   readonly settings: FamilySettings
   readonly setup: FamilySetup
-  private readonly run: Continuation
+  private readonly run: Continuation | PathOnlyRun
   private status: FamilyStatus = 'paused'
   private error?: string
   private stepSize: number
@@ -81,14 +85,16 @@ export class FamilyRunner {
   constructor(doc: PatternDocument, settings: FamilySettingsInput | FamilySettings, from?: ContinuationStart) {
     this.settings = parseFamilySettings(settings)
     this.setup = setupFamily(doc, this.settings)
-    this.run = createContinuation(this.setup.problem, from ?? this.setup.start, this.setup.options, { id: `family-${this.settings.path.kind}` })
+    const branch = { id: `family-${this.settings.path.kind}` }
+    // no unknowns (one tower): nothing to continue, the family is the path itself (path-only.ts)
+    this.run = createFamilyRun(this.setup.problem, from ?? this.setup.start, this.setup.options, branch)
     this.stepSize = this.run.options.initialStep
     if (!this.run.started) this.status = 'refused'
   }
 
   /** True once the run can make no more steps. */
   get done(): boolean {
-    return this.status === 'finished' || this.status === 'cancelled' || this.status === 'failed' || this.status === 'refused'
+    return this.status === 'finished' || this.status === 'stopped' || this.status === 'cancelled' || this.status === 'failed' || this.status === 'refused'
   }
 
   private progress(): FamilyProgress {
@@ -115,13 +121,14 @@ export class FamilyRunner {
         this.error = e instanceof Error ? e.message : String(e)
       }
     }
-    if (this.run.done && !this.done) this.status = 'finished'
+    if (this.run.done && !this.done) this.status = this.run.stalled ? 'stopped' : 'finished'
     return { points, specialPoints, progress: this.progress(), done: this.done, ...(this.done ? { finishReason: this.finishReason() } : {}) }
   }
 
   private finishReason(): string {
     if (this.status === 'failed') return `a step failed: ${this.error}`
     if (this.status === 'cancelled') return 'cancelled'
+    if (this.status === 'stopped') return `stopped: ${this.run.finishReason ?? ''}`
     return this.run.finishReason ?? ''
   }
 
@@ -164,6 +171,6 @@ export class FamilyRunner {
   result(): FamilyRunResult {
     const r = this.run.result()
     const branch: BranchResult = { ...r, points: [...r.points], specialPoints: [...r.specialPoints], finishReason: this.done ? this.finishReason() : r.finishReason }
-    return { status: this.status, settings: this.settings, branch, ...(this.error ? { error: this.error } : {}), ...(this.setup.startNote ? { startNote: this.setup.startNote } : {}) }
+    return { status: this.status, settings: this.settings, branch, ...(this.error ? { error: this.error } : {}), ...(this.setup.problem.n === 0 ? { startNote: NO_UNKNOWNS_NOTE } : this.setup.startNote ? { startNote: this.setup.startNote } : {}) }
   }
 }

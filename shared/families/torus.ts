@@ -9,17 +9,21 @@ import { TripletBuilder } from '../linalg/triplets'
 import { balanceJacobian, balanceLatticeDerivative, balanceResidual } from '../pattern/balance'
 import { meanEdgeLength, minEdgeLength, totalLength } from '../pattern/geometry'
 import type { PatternModel } from '../pattern/model'
+import { contractedBalance, type ContractedResidual } from './collapse-limit'
 import { drawingEvents, type DrawingAt } from './events'
 import { conditionEvents, trivialPhases } from './walls'
 import { latticeShapeArea, latticeTau, type LatticePath } from './lattice-paths'
 import { addTrailingBlock } from './reduce'
 import { pinnedFirstVertexMargin } from './margin'
 
-/** Event settings shared by the drawing families. */
-export interface DrawingEventOptions { collapseTolerance: number; orderFlip: boolean; terminal: boolean }
+/**
+ * Event settings shared by the drawing families. With `locateTolerance` a collapse is located
+ * where the edge reaches length 0 (families); without, where it passes the tolerance (maps).
+ */
+export interface DrawingEventOptions { collapseTolerance: number; orderFlip: boolean; terminal: boolean; locateTolerance?: number }
 
 /** The continuation problem of a lattice path, with the map from u to the full drawing. */
-export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: DrawingEventOptions): { problem: ContinuationProblem; drawingAt: DrawingAt } {
+export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: DrawingEventOptions): { problem: ContinuationProblem; drawingAt: DrawingAt; contracted: ContractedResidual } {
   const V = m.nVertices
   const n = 2 * V - 2
   const pin = [m.positions[0]!, m.positions[1]!]
@@ -30,6 +34,7 @@ export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: Draw
     p.set(u, 2)
     return { p, lattice: path.at(l).lattice }
   }
+  const contracted: ContractedResidual = (u, l, e, d, out) => { const x = drawingAt(u, l); out.set(contractedBalance(m, x.p, x.lattice, e, d).subarray(2)) }
   const B = new Float64Array(2 * V)
   const problem: ContinuationProblem = {
     n,
@@ -52,7 +57,15 @@ export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: Draw
       }
       return { Fu: b.build(), Flambda }
     },
-    events: [...drawingEvents(m, drawingAt, { ...ev, latticeMoves: true }), ...conditionEvents(m, drawingAt, { terminal: false, walls: !trivialPhases(m) })],
+    events: [...drawingEvents(m, drawingAt, {
+      ...ev, latticeMoves: true,
+      ...(ev.locateTolerance !== undefined ? {
+        limit: {
+          locateTolerance: ev.locateTolerance,
+          contracted,
+        },
+      } : {}),
+    }), ...conditionEvents(m, drawingAt, { terminal: false, walls: !trivialPhases(m) })],
     // the rigidity verdict's dimensionless margin: σ_min of J on the complement of translations, × ℓ̄
     rigidityMargin: pinnedFirstVertexMargin(V, 2, (u, l) => { const d = drawingAt(u, l); return meanEdgeLength(m, d.p, d.lattice) }),
     diagnostics(u, l) {
@@ -67,5 +80,5 @@ export function torusLatticeProblem(m: PatternModel, path: LatticePath, ev: Draw
       }
     },
   }
-  return { problem, drawingAt }
+  return { problem, drawingAt, contracted }
 }

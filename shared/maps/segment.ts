@@ -6,7 +6,7 @@
  * A fold ends the segment (beyond it the branch runs back over cells it has covered); a
  * collapse, order flip or lattice degeneracy ends it as the terminal events of the problem.
  */
-import { createContinuation } from '../continuation/engine'
+import { createFamilyRun } from '../families/path-only'
 import type { ContinuationPoint } from '../continuation/types'
 import type { PlaneSlice } from './plane'
 
@@ -47,13 +47,14 @@ export function runSegment(slice: PlaneSlice, u0: ArrayLike<number>, lambda0: nu
   const maxStep = o.maxStep ?? Math.min(0.5, spacing)
   const beyond = last + (increase ? 1 : -1) * 0.5 * spacing
   const milestones = targets.filter(t => t !== lambda0)
-  const run = createContinuation(slice.problem, { u: u0, lambda: lambda0 }, {
+  // a pattern without unknowns (one tower) walks the slice instead (path-only.ts)
+  const run = createFamilyRun(slice.problem, { u: u0, lambda: lambda0 }, {
     direction: increase ? 'increase' : 'decrease',
     milestones,
     ...(increase ? { lambdaMax: beyond } : { lambdaMin: beyond }),
     initialStep: Math.min(0.05, maxStep), maxStep,
     maxPoints: o.maxPoints ?? 5000,
-  })
+  }, { id: 'map-segment' })
   if (!run.started) return { points, crossings, endedBy: 'no convergence' }
   let next = 0
   const first = run.result().points[0]

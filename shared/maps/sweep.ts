@@ -8,6 +8,7 @@ import { compilePattern, type PatternModel } from '../pattern/model'
 import { axisValues, parseMapSettings, type MapCell, type MapCrossing, type MapResult, type MapRow, type MapRowStart, type MapSettings } from '../types/maps'
 import type { PatternDocument } from '../types/pattern'
 import { mapPlane, type MapPlaneModel, type PlaneSlice } from './plane'
+import { fillMap } from './fill'
 import { runSegment, type SegmentResult } from './segment'
 
 /** The spine: where each row starts, plus the spine's own crossings. */
@@ -23,15 +24,18 @@ export interface MapSpine {
 
 interface Bound { model: PatternModel; plane: MapPlaneModel; settings: MapSettings }
 
-function bind(doc: PatternDocument, settingsInput: unknown): Bound {
+/** The pattern, its plane and the parsed settings. */
+export function bind(doc: PatternDocument, settingsInput: unknown): Bound {
   const settings = parseMapSettings(settingsInput)
   const model = compilePattern(doc)
   return { model, plane: mapPlane(model, settings), settings }
 }
 
-const segOpts = (s: MapSettings) => ({ ...(s.maxStep !== undefined ? { maxStep: s.maxStep } : {}), maxPoints: s.maxPointsPerRow })
+/** Segment options from the map settings. */
+export const segOpts = (s: MapSettings) => ({ ...(s.maxStep !== undefined ? { maxStep: s.maxStep } : {}), maxPoints: s.maxPointsPerRow })
 
-function crossingsOf(r: SegmentResult, along: 'row' | 'column', fixed: number): MapCrossing[] {
+/** The crossings of a segment (and the event that ended it) in plane coordinates. */
+export function crossingsOf(r: SegmentResult, along: 'row' | 'column', fixed: number): MapCrossing[] {
   const list = r.crossings.map(c => ({ ...c }))
   if (r.end) list.push({ kind: r.endedBy!, lambda: r.end.lambda, u: r.end.u })
   return list.map(c => ({ kind: c.kind, lambda: c.lambda, u: c.u, along, x: along === 'row' ? c.lambda : fixed, y: along === 'row' ? fixed : c.lambda }))
@@ -75,7 +79,8 @@ export function sweepSpine(doc: PatternDocument, settingsInput: unknown): MapSpi
   return { settings, xs, ys, seed, spineColumn, starts, crossings }
 }
 
-function solvedCell(slice: PlaneSlice, i: number, j: number, x: number, y: number, p: NonNullable<SegmentResult['points'][number]>): MapCell {
+/** A solved cell from the engine point reached at it. */
+export function solvedCell(slice: PlaneSlice, i: number, j: number, x: number, y: number, p: NonNullable<SegmentResult['points'][number]>): MapCell {
   const v = slice.values(p)
   const cell: MapCell = { i, j, x, y, status: 'solved', residualNorm: p.residualNorm, lambda: p.lambda, u: p.u }
   for (const [k, val] of Object.entries(v)) if (val !== undefined && Number.isFinite(val)) (cell as unknown as Record<string, number>)[k] = val
@@ -121,7 +126,10 @@ export function assembleMap(spine: MapSpine, rows: (MapRow | undefined)[]): MapR
   }
 }
 
-/** The whole map in this thread (CLI, tests, the server's reference). `onRow` sees each row as it is done. */
+/**
+ * The whole map in this thread (CLI, tests, the server's reference): spine, rows, then the fill
+ * through columns and re-seeded rows (fill.ts). `onRow` sees each row as the row sweep ends it.
+ */
 export function runMapSweep(doc: PatternDocument, settingsInput: unknown, onRow?: (row: MapRow) => void): MapResult {
   const spine = sweepSpine(doc, settingsInput)
   const rows = spine.starts.map((st) => {
@@ -129,5 +137,5 @@ export function runMapSweep(doc: PatternDocument, settingsInput: unknown, onRow?
     onRow?.(r)
     return r
   })
-  return assembleMap(spine, rows)
+  return fillMap(doc, spine.settings, assembleMap(spine, rows))
 }

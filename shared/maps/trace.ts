@@ -12,7 +12,7 @@ import { balanceJacobian, balanceResidual } from '../pattern/balance'
 import { compilePattern, type PatternModel } from '../pattern/model'
 import { pinnedLevelJacobian } from '../pattern/phase-solve'
 import { levelJacobian, levelResidual, modelLevels } from '../pattern/vertical-balance'
-import { parseMapSettings, type MapCrossing, type MapSettings } from '../types/maps'
+import { parseMapSettings, type MapCrossing, type MapResult, type MapSettings } from '../types/maps'
 import type { PatternDocument } from '../types/pattern'
 import { nullVectors, rigidityLossCurveProblem, type TwoParameterProblem } from './augmented'
 import { collapseCurveProblem, shortestEdge } from './collapse'
@@ -103,4 +103,44 @@ export function traceMapCurve(doc: PatternDocument, settingsInput: unknown, cros
   const nv = nullVectors(p, u, crossing.x, crossing.y)
   const y0 = new Float64Array(p.n + 1); y0.set(u); y0[p.n] = crossing.y
   return traceCurve('rigidity loss', rigidityLossCurveProblem(p, nv.right, nv.left), y0, crossing.x, w)
+}
+
+/** The crossings a tracer can start from: collapses and rigidity losses met by the sweep. */
+export function traceableCrossings(map: MapResult): MapCrossing[] {
+  return [...map.spineCrossings, ...map.rows.flatMap(r => r.crossings)].filter(c => c.kind === 'collapse' || c.kind === 'rigidity loss')
+}
+
+/** Distance from (x, y) to a polyline. */
+export function distanceToPolyline(pts: [number, number][], x: number, y: number): number {
+  let best = Infinity
+  for (let k = 1; k < pts.length; k++) {
+    const [ax, ay] = pts[k - 1]!, [bx, by] = pts[k]!
+    const dx = bx - ax, dy = by - ay, len2 = dx * dx + dy * dy
+    const t = len2 > 0 ? Math.max(0, Math.min(1, ((x - ax) * dx + (y - ay) * dy) / len2)) : 0
+    best = Math.min(best, Math.hypot(ax + t * dx - x, ay + t * dy - y))
+  }
+  return best
+}
+
+/** The smaller grid step of a map (at most 1). */
+export function mapGridStep(map: Pick<MapResult, 'xs' | 'ys'>): number {
+  const { xs, ys } = map
+  return Math.min(xs.length > 1 ? xs[1]! - xs[0]! : Infinity, ys.length > 1 ? ys[1]! - ys[0]! : Infinity, 1)
+}
+
+/** True when a crossing lies on an already traced curve of its kind (within a tenth of a grid step): no need to trace it again. */
+export function onTracedCurve(curves: { kind: string; points: [number, number][] }[], c: MapCrossing, step: number): boolean {
+  return curves.some(k => k.kind.startsWith(c.kind) && distanceToPolyline(k.points, c.x, c.y) < 0.1 * step)
+}
+
+/** Every distinct curve through the map's crossings, in this thread (the CLI's `map --trace`). */
+export function traceAllCurves(doc: PatternDocument, map: MapResult): TracedCurve[] {
+  const out: TracedCurve[] = []
+  const step = mapGridStep(map)
+  for (const c of traceableCrossings(map)) {
+    if (onTracedCurve(out, c, step)) continue
+    const r = traceMapCurve(doc, map.settings, c)
+    if (r.points.length > 1) out.push(r)
+  }
+  return out
 }

@@ -3,6 +3,7 @@
  * point (not the engine's located λ), so a stored map can be checked without trusting its
  * producer. F is dimensionless for drawings (a sum of unit vectors), in units of the weights for phases.
  */
+import { formatNumber } from '../format'
 import { compilePattern } from '../pattern/model'
 import { parseMapSettings, type MapCell } from '../types/maps'
 import type { PatternDocument } from '../types/pattern'
@@ -34,7 +35,7 @@ export function verifyMapCells(doc: PatternDocument, settingsInput: unknown, cel
     for (let k = 0; k < p.n; k++) r = Math.max(r, Math.abs(out[k]!))
     if (!Number.isFinite(r)) r = Infinity
     res.maxResidual = Math.max(res.maxResidual, r)
-    if (!(r <= tol)) res.offending.push({ i: c.i, j: c.j, residualNorm: r, reason: `max|F| = ${r.toExponential(2)} > ${tol}` })
+    if (!(r <= tol)) res.offending.push({ i: c.i, j: c.j, residualNorm: r, reason: `max|F| = ${formatNumber(r)} > ${tol}` })
   }
   res.verified = res.offending.length === 0
   return res

@@ -58,6 +58,7 @@ export const FamilySettingsSchema = z.strictObject({
   to: z.number().finite().describe('target value of λ: the run ends with a "bound" point there'),
   direction: z.enum(['increase', 'decrease']).optional().describe('initial direction in λ (default: towards `to`)'),
   balanceFirst: z.boolean().default(true).describe('balance the drawing (or the phases) at the start value before continuing'),
+  allowSingularStart: z.boolean().optional().describe('start even where F_u is singular at the start (a start that is not rigid: the family need not be locally unique there); default false'),
   step: FamilyStepSchema.default({}),
   stop: FamilyStopSchema.default({ maxPoints: 500, collapseTolerance: 1e-3, orderFlip: true, stopAtEvents: true, stopAtSpecialPoint: false, locateTolerance: 1e-9 }),
 })

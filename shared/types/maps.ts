@@ -19,8 +19,16 @@ export type MapQuantity = (typeof MAP_QUANTITIES)[number]
 
 /** How each quantity is named on screen (colour-by choice, scale caption). */
 export const MAP_QUANTITY_LABELS: Record<MapQuantity, string> = {
-  sigmaMin: 'σ_min (dimensionless)', negativeEigenvalues: 'negative eigenvalues', minEdgeRatio: 'shortest / mean edge',
-  lengthPerRootArea: 'total length / √area', minCos: 'smallest cos φ',
+  sigmaMin: 'rigidity margin σ_min [dimensionless]', negativeEigenvalues: 'negative eigenvalues of F_u [count]',
+  minEdgeRatio: 'min edge / mean edge [dimensionless]', lengthPerRootArea: 'total length / √area [dimensionless]', minCos: 'smallest cos φ [dimensionless]',
+}
+
+/**
+ * A map quantity's name and unit. The rigidity margin is the one runs record too: the rigidity
+ * verdict's σ_min with the trivial motions removed, × ℓ̄ (τ plane) or ÷ K̄ (α plane).
+ */
+export function mapQuantityLabel(q: MapQuantity, _plane: 'tau' | 'alpha'): string {
+  return MAP_QUANTITY_LABELS[q]
 }
 
 /** Largest number of values on one axis (a 201 × 201 map has 40 401 cells). */
@@ -89,8 +97,22 @@ export interface MapCell {
   lambda?: number
   /** The state (positions of vertices 1..V−1, or phases 1..V−1): restart and verification. */
   u?: number[]
-  /** For unreachable cells: "collapse", "order flip", "lattice degeneracy", "fold", "no convergence", "row unreachable". */
+  /**
+   * For unsolved cells: a degeneration met on the way from a solved cell ("collapse", "order
+   * flip", "lattice degeneracy", "fold"), "no convergence", or {@link NOT_REACHED}.
+   */
   endedBy?: string
+}
+
+/** endedBy of a cell no continuation from a solved cell got to (shared/maps/fill.ts). */
+export const NOT_REACHED = 'unreachable from the seed'
+
+/** Events past which an unsolved cell is "past a degeneration" rather than unreachable from the seed. */
+export const DEGENERATIONS: readonly string[] = ['collapse', 'order flip', 'lattice degeneracy', 'fold']
+
+/** True for an unsolved cell that lies past a degeneration met on the way from a solved cell. */
+export function pastDegeneration(c: Pick<MapCell, 'status' | 'endedBy'>): boolean {
+  return c.status !== 'solved' && DEGENERATIONS.includes(c.endedBy ?? '')
 }
 
 /** A special point met while sweeping (rigidity loss, branch point, or the event ending a half row). */

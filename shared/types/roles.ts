@@ -13,7 +13,8 @@ export function roleAtLeast(role: ProjectRole, min: ProjectRole): boolean {
   return PROJECT_ROLES.indexOf(role) >= PROJECT_ROLES.indexOf(min)
 }
 
-export const RUN_STATUSES = ['running', 'complete', 'cancelled', 'failed'] as const
+/** 'stopped': the corrector kept failing, the family was not followed to its end. */
+export const RUN_STATUSES = ['running', 'complete', 'stopped', 'cancelled', 'failed'] as const
 export type RunStatus = typeof RUN_STATUSES[number]
 
 export const VERIFICATION_STATES = ['pending', 'verified', 'rejected'] as const

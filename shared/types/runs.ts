@@ -46,6 +46,8 @@ export const RunSpecialPointSchema = z.object({
   precision: finite.default(0),
   located: z.boolean().default(false),
   iterations: z.number().int().min(0).default(0),
+  /** A collapse located at length 0: where the run stopped (the tolerance crossing). */
+  stoppedAt: z.object({ lambda: finite }).optional(),
 })
 export type RunSpecialPointPayload = z.input<typeof RunSpecialPointSchema>
 
@@ -70,7 +72,7 @@ export const runCreateSchema = z.object({
 export type RunCreatePayload = z.input<typeof runCreateSchema>
 
 /** Final states a browser may report. */
-export const RUN_END_STATES = ['complete', 'cancelled', 'failed'] as const
+export const RUN_END_STATES = ['complete', 'stopped', 'cancelled', 'failed'] as const
 
 /** POST /api/runs/[runId]/finish. */
 export const runFinishSchema = z.object({
@@ -125,6 +127,7 @@ export const runImportSchema = z.object({
     name: z.string().max(120),
     settings: FamilySettingsSchema,
     status: z.enum(RUN_STATUSES).optional(),
+    finishReason: z.string().max(1000).nullable().optional(),
     points: z.array(RunPointSchema).max(100_000),
     specialPoints: z.array(RunSpecialPointSchema).max(10_000).default([]),
   }).passthrough(),
@@ -149,6 +152,8 @@ export interface RunSummary {
   verificationReason: string | null
   /** Definition of vertical balance the verification used ('cuts-v1'); null: the earlier vertex-sum definition. */
   verticalBalance: string | null
+  /** Why the run ended, as the browser reported it (e.g. "stopped: no convergence past λ = …"). */
+  finishReason: string | null
   pointCount: number
   specialCount: number
   authorId: number | null

@@ -3,7 +3,7 @@
  * coordinate (drawing paths) or phase (phase paths). A point is read through `axisValue`. Pure.
  */
 import { PHASE_PATH_KINDS } from '#shared/types/family'
-import { diagnosticQuantity, expectedDiagnostics, lambdaQuantity, type Quantity } from './units'
+import { ARCLENGTH, diagnosticQuantity, expectedDiagnostics, lambdaQuantity, sigmaMinQuantity, type Quantity } from './units'
 
 /** A point as the diagram reads it (live engine points and stored points both map to this). */
 export interface DiagramPoint {
@@ -27,7 +27,7 @@ export interface DiagramSpecial {
   located?: boolean
 }
 
-/** Axis keys: 'lambda', 'arclength', 'sigmaMin', 'd:<diagnostic>', 'u:<k>'. */
+/** Axis keys: 'lambda', 'arclength', 'sigmaMin', 'latticeAngle' (arg τ), 'd:<diagnostic>', 'u:<k>'. */
 export type AxisKey = string
 
 /** The axes a run offers, given its path kind, vertex ids (vertex 0 is pinned) and the diagnostic keys its points record (the kind's usual ones are always offered). */
@@ -36,10 +36,12 @@ export function availableAxes(kind: string, vertexIds: readonly string[], record
   const phase = (PHASE_PATH_KINDS as readonly string[]).includes(kind)
   const out: Array<Quantity & { key: AxisKey }> = [
     lambdaQuantity(kind),
-    { key: 'arclength', label: 'pseudo-arclength', unit: '1' },
-    { ...diagnosticQuantity('sigmaMin'), key: 'sigmaMin' },
-    ...diagnostics.filter(d => d !== 'sigmaMin').map(d => ({ ...diagnosticQuantity(d), key: `d:${d}` })),
+    ARCLENGTH,
+    sigmaMinQuantity(kind),
+    ...diagnostics.filter(d => d !== 'sigmaMin').map(d => ({ ...diagnosticQuantity(d, kind), key: `d:${d}` })),
   ]
+  // the angle between ω1 and ω2, arg τ, from Re τ and Im τ (lattice paths)
+  if (diagnostics.includes('tauRe') && diagnostics.includes('tauIm')) out.push({ ...diagnosticQuantity('latticeAngle'), key: 'latticeAngle' })
   vertexIds.slice(1).forEach((id, i) => {
     if (phase) out.push({ key: `u:${i}`, label: `phase of ${id}`, unit: 'rad' })
     else out.push({ key: `u:${2 * i}`, label: `x of ${id}`, unit: 'length' }, { key: `u:${2 * i + 1}`, label: `y of ${id}`, unit: 'length' })
@@ -52,6 +54,10 @@ export function axisValue(p: DiagramPoint, key: AxisKey): number | undefined {
   if (key === 'lambda') return p.lambda
   if (key === 'arclength') return p.arclength
   if (key === 'sigmaMin') return p.sigmaMin ?? p.diagnostics.sigmaMin
+  if (key === 'latticeAngle') {
+    const [re, im] = [p.diagnostics.tauRe, p.diagnostics.tauIm]
+    return re === undefined || im === undefined ? undefined : Math.atan2(im, re)
+  }
   if (key.startsWith('d:')) return p.diagnostics[key.slice(2)]
   if (key.startsWith('u:')) return p.u[Number(key.slice(2))]
   return undefined

@@ -4,11 +4,11 @@
  * Both carry the app version, the settings and the caution line. Pure functions.
  */
 import { RESULT_CAUTION, RUN_EXPORT_FORMAT, type RunSummary, type StoredRunPoint } from '#shared/types/runs'
-import { diagnosticQuantity, lambdaQuantity, withUnit } from './units'
+import { ARCLENGTH, diagnosticQuantity, lambdaQuantity, residualQuantity, STEP_SIZE, withUnit } from './units'
 
 /** What an export needs about the run. */
 export interface ExportRun {
-  summary: Pick<RunSummary, 'id' | 'name' | 'pathKind' | 'status' | 'verification' | 'verificationReason' | 'graphName' | 'graphVersion' | 'appVersion' | 'createdAt'> & Partial<Pick<RunSummary, 'verticalBalance'>>
+  summary: Pick<RunSummary, 'id' | 'name' | 'pathKind' | 'status' | 'verification' | 'verificationReason' | 'graphName' | 'graphVersion' | 'appVersion' | 'createdAt'> & Partial<Pick<RunSummary, 'verticalBalance'>> & { finishReason?: string | null }
   settings: unknown
   points: StoredRunPoint[]
   specialPoints: StoredRunPoint[]
@@ -40,10 +40,11 @@ export function buildRunCsv(run: ExportRun): string {
     const a = Number((s.state as { afterPoint?: number }).afterPoint ?? -1)
     after.set(a, [...(after.get(a) ?? []), `${s.specialKind} at λ=${s.lambda}`])
   }
-  const header = ['index', `lambda: ${withUnit(lam)}`, 'residual: max|F| [1]', 'arclength [1]', 'step size [1]', ...keys.map(k => `${k}: ${withUnit(diagnosticQuantity(k))}`), 'special_after']
+  const kind = run.summary.pathKind
+  const header = ['index', `lambda: ${withUnit(lam)}`, `residual: ${withUnit(residualQuantity(kind))}`, `arclength: ${withUnit(ARCLENGTH)}`, `step size: ${withUnit(STEP_SIZE)}`, ...keys.map(k => `${k}: ${withUnit(diagnosticQuantity(k, kind))}`), 'special_after']
   const lines = [
     `# Wingfold ${run.exportedBy} run export (computed with Wingfold ${run.summary.appVersion})`,
-    `# run ${run.summary.id} "${run.summary.name}" on pattern "${run.summary.graphName}" version ${run.summary.graphVersion}; status ${run.summary.status}; verification ${run.summary.verification}`,
+    `# run ${run.summary.id} "${run.summary.name}" on pattern "${run.summary.graphName}" version ${run.summary.graphVersion}; status ${run.summary.status}${run.summary.finishReason ? ` (${run.summary.finishReason})` : ''}; verification ${run.summary.verification}`,
     `# settings ${JSON.stringify(run.settings)}`,
     `# ${RESULT_CAUTION}`,
     header.map(csvCell).join(','),
@@ -67,6 +68,7 @@ export function buildRunJson(run: ExportRun) {
     name: run.summary.name,
     pattern: { name: run.summary.graphName, version: run.summary.graphVersion },
     status: run.summary.status,
+    finishReason: run.summary.finishReason ?? null,
     // verticalBalance: the definition the verdict used ('cuts-v1'); null = the earlier vertex-sum one
     verification: { state: run.summary.verification, reason: run.summary.verificationReason, verticalBalance: run.summary.verticalBalance ?? null },
     lambda: lambdaQuantity(run.summary.pathKind),

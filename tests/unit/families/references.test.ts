@@ -68,8 +68,9 @@ describe('Fermat pair sheared in a (ω1 = (1, 0), ω2 = (a, 1))', () => {
 describe('twisted ring states in α1', () => {
   // Twisted state with winding: phase difference α1/n on every edge, Jacobian weights cos(α1/n),
   // singular at α1/n = π/2 (D. A. Wiley, S. H. Strogatz, M. Girvan, "The size of the sync basin",
-  // Chaos 16, 015103, 2006): all n − 1 reduced eigenvalues cross zero together at α1 = nπ/2.
-  for (const n of [5, 7]) {
+  // Chaos 16, 015103, 2006): all n − 1 reduced eigenvalues cross zero together at α1 = nπ/2, the
+  // whole reduced Jacobian vanishes. One name for every n, odd or even n − 1 alike.
+  for (const n of [4, 5, 6, 7]) {
     it(`ring of ${n}: rigidity loss at α1 = ${n}π/2 with an inertia change of ${n - 1}`, () => {
       const exact = (n * Math.PI) / 2
       const r = runToEnd(ring(n), { path: { kind: 'alpha1' }, to: exact + 2, step: { max: 0.3 } })
@@ -81,6 +82,9 @@ describe('twisted ring states in α1', () => {
       console.log(`ring ${n}: rigidity loss at α1 = ${s.lambda}, ${n}π/2 = ${exact}, relative deviation ${dev.toExponential(2)}; inertia ${before} → ${after}`)
       expect(dev).toBeLessThan(1e-9)
       expect(Math.abs(before - after)).toBe(n - 1)
+      expect(s.label).toContain(`kernel dimension ${n - 1}, negative eigenvalues ${before} → ${after}`)
+      expect(s.located).toBe(true)
+      expect(s.precision).toBeLessThanOrEqual(1e-9) // the default locate tolerance, reached
       // the state along the branch is the twisted state ψ_i = i·α1/n (ψ_0 pinned at 0)
       const mid = r.branch.points[Math.floor(r.branch.points.length / 2)]!
       mid.u.forEach((psi, i) => expect(psi).toBeCloseTo(((i + 1) * mid.lambda) / n, 9))

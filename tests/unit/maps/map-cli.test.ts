@@ -29,7 +29,7 @@ describe('wingfold map', () => {
   it('prints a picture and exits 2 on bad axes', async () => {
     const ok = await map('shared/examples/square-pair.wfp.json', '--re', '-0.2:0.2:3', '--im', '1:1.2:2')
     expect(ok.code).toBe(0)
-    expect(ok.stdout).toMatch(/tau map 3×2: 6 cells solved/)
+    expect(ok.stdout).toMatch(/tau map 3×2: 6 cells solved, 0 past a degeneration, 0 unreachable from the seed/)
     expect((await map('shared/examples/square-pair.wfp.json', '--re', '1:0:3', '--im', '1:2:3')).code).toBe(2)
     expect((await map('shared/examples/square-pair.wfp.json', '--re', 'x')).code).toBe(2)
   })

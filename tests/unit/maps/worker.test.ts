@@ -1,6 +1,6 @@
 /**
  * The map worker's API through comlink over a Node MessageChannel: spine and rows posted across
- * the channel assemble into the same map as the one-thread sweep; a traced collapse curve of the
+ * the channel assemble (and fill) into the same map as the one-thread sweep; a traced collapse curve of the
  * Fermat pair crosses the channel and lies on arg τ = 120° (Fermat–Torricelli, Kimberling X(13)).
  */
 import { MessageChannel } from 'node:worker_threads'
@@ -28,7 +28,7 @@ describe('map worker over comlink', () => {
     const [a, b] = [connect(), connect()]
     const spine = await a.spine(doc, settings)
     const rows = await Promise.all(spine.starts.map((s, k) => (k % 2 ? b : a).row(doc, spine.settings, s, spine.spineColumn)))
-    expect(assembleMap(spine, rows)).toEqual(runMapSweep(doc, settings))
+    expect(await b.fill(doc, spine.settings, assembleMap(spine, rows))).toEqual(runMapSweep(doc, settings))
   })
 
   it('traces the collapse curve of the corner at 0 through the channel', async () => {

@@ -22,7 +22,7 @@ export default defineEventHandler(async (event) => {
     if (!res.accepted) break
     run = (await useDb().query.runs.findFirst({ where: eq(tables.runs.id, run.id) }))!
   }
-  await useDb().update(tables.runs).set({ status: file.status === 'running' || !file.status ? 'complete' : file.status }).where(eq(tables.runs.id, run.id))
+  await useDb().update(tables.runs).set({ status: file.status === 'running' || !file.status ? 'complete' : file.status, finishReason: file.finishReason ?? null }).where(eq(tables.runs.id, run.id))
   await verifyStoredRun(run.id)
   await logActivity({ projectId: id, actorId: user.id, verb: 'imported', objectType: 'run', objectId: run.id, data: { name: run.name } })
   setResponseStatus(event, 201)

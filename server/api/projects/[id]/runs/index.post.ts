@@ -7,6 +7,7 @@ export default defineEventHandler(async (event) => {
   const { user } = await requireProjectRole(event, id, 'editor')
   const body = await readValidatedBody(event, runCreateSchema.parse)
   const version = await resolveGraphVersion(id, body.graphId, body.version)
+  assertSettingsFit(version.document, body.settings)
   if (body.parentRunId !== undefined) {
     const parent = await useDb().query.runs.findFirst({ where: (r, { eq }) => eq(r.id, body.parentRunId!) })
     if (!parent || parent.projectId !== id) throw httpError(404, 'run_not_found', 'No such parent run in this project.')
