@@ -13,7 +13,8 @@ export function roleAtLeast(role: ProjectRole, min: ProjectRole): boolean {
   return PROJECT_ROLES.indexOf(role) >= PROJECT_ROLES.indexOf(min)
 }
 
-export const RUN_STATUSES = ['running', 'complete', 'cancelled', 'failed'] as const
+/** `interrupted`: nobody wrote to the run for `runIdleMinutes`; the server ended it (server/plugins/run-sweeper.ts). */
+export const RUN_STATUSES = ['running', 'complete', 'cancelled', 'failed', 'interrupted'] as const
 export type RunStatus = typeof RUN_STATUSES[number]
 
 export const VERIFICATION_STATES = ['pending', 'verified', 'rejected'] as const

@@ -37,6 +37,15 @@ export interface StartServerOptions {
   mode?: 'build' | 'dev'
 }
 
+const mailboxes = new Map<string, string>()
+
+/** The fake SMTP server's mailbox folder of the test server at `url` (what recipients received). */
+export function mailboxDirOf(url: string): string {
+  const dir = mailboxes.get(url)
+  if (!dir) throw new Error(`no test server at ${url}`)
+  return dir
+}
+
 /** Ask the OS for a free TCP port. */
 export function freePort(): Promise<number> {
   return new Promise((ok, fail) => {
@@ -74,6 +83,8 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
       NUXT_MIGRATIONS_DIR: join(ROOT, 'server/migrations'),
       NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
       NUXT_PUBLIC_BASE_URL: url,
+      // the recipients' mailbox of the fake SMTP server (tests read single-use links from it)
+      NUXT_MAILBOX_DIR: join(dataDir, 'mailbox'),
       // nuxt dev clears its build and output folders: keep it away from the build under test
       // (inside the project root, where Vite may serve from; git-ignored `.nuxt-*` / `.output-*`)
       ...(dev ? { WINGFOLD_BUILD_DIR: devDirs.build, WINGFOLD_OUTPUT_DIR: devDirs.output } : {}),
@@ -100,7 +111,10 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
     if (child.exitCode !== null) break
     try {
       const res = await fetch(`${url}/api/health`)
-      if (res.ok) return { url, dataDir, output: () => log, stop }
+      if (res.ok) {
+        mailboxes.set(url, join(dataDir, 'mailbox'))
+        return { url, dataDir, output: () => log, stop }
+      }
     }
     catch { /* not listening yet */ }
     await new Promise(ok => setTimeout(ok, 200))
