@@ -3,7 +3,7 @@
  * settings before anything is stored; one offending point rejects the run (reason naming the
  * point) and nothing of the batch is written.
  *
- * Crash safety: the points and the run's counts are written in one transaction, so a killed
+ * Crash safety: the points and the run's counts are written in one batch (one transaction), so a killed
  * server leaves either both or neither. Idempotency: a batch whose every point is already stored
  * with the same λ (a retry after a lost answer) is answered 200 with the current counts and
  * `duplicate: true`, and nothing is written again; a batch that overlaps stored points only in
@@ -74,18 +74,19 @@ export async function appendBatch(run: RunRow, batch: Batch): Promise<AppendResu
     })),
   ]
   const rp = tables.runPoints
+  const db = useDb()
   let counts: { points: number, special: number }
   try {
-    counts = await useDb().transaction(async (tx) => {
-      for (let i = 0; i < rows.length; i += 100) await tx.insert(rp).values(rows.slice(i, i + 100))
-      const c = await tx.select({
-        points: sql<number>`sum(case when ${rp.index} >= 0 then 1 else 0 end)`,
-        special: sql<number>`sum(case when ${rp.index} < 0 then 1 else 0 end)`,
-      }).from(rp).where(eq(rp.runId, run.id)).get()
-      const n = { points: Number(c?.points ?? 0), special: Number(c?.special ?? 0) }
-      await tx.update(tables.runs).set({ pointCount: n.points, specialCount: n.special }).where(eq(tables.runs.id, run.id))
-      return n
-    })
+    // One batch = one transaction, run without yielding: the points and the counts are stored
+    // together or not at all (a killed server leaves neither half).
+    const inserts = []
+    for (let i = 0; i < rows.length; i += 100) inserts.push(db.insert(rp).values(rows.slice(i, i + 100)))
+    const update = db.update(tables.runs).set({
+      pointCount: sql`(SELECT count(*) FROM run_points WHERE run_id = ${run.id} AND "index" >= 0)`,
+      specialCount: sql`(SELECT count(*) FROM run_points WHERE run_id = ${run.id} AND "index" < 0)`,
+    }).where(eq(tables.runs.id, run.id)).returning({ points: tables.runs.pointCount, special: tables.runs.specialCount })
+    const results = await db.batch([...inserts, update] as unknown as [typeof update])
+    counts = (results.at(-1) as Array<{ points: number, special: number }>)[0]!
   } catch (e) {
     if (/UNIQUE/i.test(String((e as { cause?: unknown }).cause ?? e))) throw httpError(409, 'point_exists', 'A point with one of these indices is already saved.')
     throw e

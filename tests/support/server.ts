@@ -25,6 +25,8 @@ export interface TestServer {
   output: () => string
   /** Stop the process and delete the temporary folder. */
   stop: () => Promise<void>
+  /** SIGKILL the process (a crash) and keep the folder, to restart on the same file. */
+  kill: () => Promise<void>
 }
 
 /** Options of {@link startServer}. */
@@ -35,6 +37,8 @@ export interface StartServerOptions {
   timeoutMs?: number
   /** `build` (default): the production build; `dev`: `nuxt dev` with hot reload. */
   mode?: 'build' | 'dev'
+  /** Reuse this data folder (e.g. restart after `kill()`) instead of a new temporary one. */
+  dataDir?: string
 }
 
 const mailboxes = new Map<string, string>()
@@ -63,7 +67,7 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
   const dev = opts.mode === 'dev'
   const entry = join(ROOT, process.env.WINGFOLD_OUTPUT_DIR || '.output', 'server/index.mjs')
   if (!dev && !existsSync(entry)) throw new Error('No build found: run `npx nuxt build` before the server and e2e tests (npm test does).')
-  const dataDir = mkdtempSync(join(tmpdir(), 'wingfold-test-'))
+  const dataDir = opts.dataDir ?? mkdtempSync(join(tmpdir(), 'wingfold-test-'))
   const port = await freePort()
   const url = `http://127.0.0.1:${port}`
   let log = ''
@@ -106,6 +110,13 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
     if (dev) for (const d of Object.values(devDirs)) rmSync(d, { recursive: true, force: true })
   }
 
+  const kill = async () => {
+    if (child.exitCode === null && child.signalCode === null) {
+      process.kill(-child.pid!, 'SIGKILL')
+      await exited
+    }
+  }
+
   const deadline = Date.now() + (opts.timeoutMs ?? (dev ? 180_000 : 60_000))
   while (Date.now() < deadline) {
     if (child.exitCode !== null) break
@@ -113,7 +124,7 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
       const res = await fetch(`${url}/api/health`)
       if (res.ok) {
         mailboxes.set(url, join(dataDir, 'mailbox'))
-        return { url, dataDir, output: () => log, stop }
+        return { url, dataDir, output: () => log, stop, kill }
       }
     }
     catch { /* not listening yet */ }
