@@ -122,6 +122,17 @@ describe('HEAD', () => {
   })
 })
 
+describe('docs/api.md examples', () => {
+  it('a pattern upload answers 201 with the version as a number, an invalid document 422', async () => {
+    const ok = await owner.json('POST', `/api/projects/${torusId}/graphs`, { name: 'From the notebook', message: 'From the notebook', document: fermat.document })
+    expect(ok.status).toBe(201)
+    expect(ok.body).toEqual({ id: expect.any(Number), version: 1 })
+    const bad = await owner.json('POST', `/api/projects/${torusId}/graphs`, { name: 'Broken', document: { ...fermat.document, vertices: 'none' } })
+    expect(bad.status).toBe(422)
+    expect(bad.body.data.code).toBe('invalid_pattern')
+  })
+})
+
 describe('batch uploads', () => {
   it('accepts the same batch twice once, answering 200 both times', async () => {
     const runId = await newRun('retried batch')
