@@ -123,11 +123,14 @@ describe('HEAD', () => {
 })
 
 describe('docs/api.md examples', () => {
-  it('a pattern upload answers 201 with the version as a number, an invalid document 422', async () => {
+  it('a pattern upload answers 201 with the version as a number; a document of the wrong shape 400, with broken references 422', async () => {
     const ok = await owner.json('POST', `/api/projects/${torusId}/graphs`, { name: 'From the notebook', message: 'From the notebook', document: fermat.document })
     expect(ok.status).toBe(201)
     expect(ok.body).toEqual({ id: expect.any(Number), version: 1 })
-    const bad = await owner.json('POST', `/api/projects/${torusId}/graphs`, { name: 'Broken', document: { ...fermat.document, vertices: 'none' } })
+    const shape = await owner.json('POST', `/api/projects/${torusId}/graphs`, { name: 'Broken', document: { ...fermat.document, vertices: 'none' } })
+    expect(shape.status).toBe(400)
+    const edges = fermat.document.edges.map((e, k) => (k === 0 ? { ...e, to: 'nowhere' } : e))
+    const bad = await owner.json('POST', `/api/projects/${torusId}/graphs`, { name: 'Broken', document: { ...fermat.document, edges } })
     expect(bad.status).toBe(422)
     expect(bad.body.data.code).toBe('invalid_pattern')
   })
