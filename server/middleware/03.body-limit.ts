@@ -42,5 +42,5 @@ export default defineEventHandler(async (event) => {
   if (!declared && headers['transfer-encoding'] === undefined) return
   const limit = bodyLimitFor(event.method, event.path)
   if (declared > limit) throw tooLarge(limit)
-  ;(event as H3Event & { _requestBody?: Buffer })._requestBody = await readLimited(event, limit)
+  ;(event as unknown as { _requestBody?: Buffer })._requestBody = await readLimited(event, limit)
 })
