@@ -8,18 +8,18 @@ import type { H3Event } from 'h3'
 
 const WITH_BODY = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
-function tooLarge(limit: number) {
-  return httpError(413, 'body_too_large', `This request body is larger than the ${(limit / 1e6).toLocaleString('en', { maximumFractionDigits: 1 })} MB this route accepts.`)
+function tooLarge(limit: { bytes: number, why: string }) {
+  return httpError(413, 'body_too_large', `Request bodies here are limited to ${(limit.bytes / 1e6).toFixed(1)} MB (${limit.why}); this one is larger.`)
 }
 
-function readLimited(event: H3Event, limit: number): Promise<Buffer> {
+function readLimited(event: H3Event, limit: { bytes: number, why: string }): Promise<Buffer> {
   const req = event.node.req
   return new Promise((resolve, reject) => {
     const chunks: Buffer[] = []
     let size = 0
     const onData = (chunk: Buffer) => {
       size += chunk.length
-      if (size > limit) {
+      if (size > limit.bytes) {
         req.off('data', onData)
         chunks.length = 0
         // The rest is discarded as it arrives (never kept); the answer goes out now.
@@ -41,6 +41,6 @@ export default defineEventHandler(async (event) => {
   const declared = Number(headers['content-length'] ?? 0)
   if (!declared && headers['transfer-encoding'] === undefined) return
   const limit = bodyLimitFor(event.method, event.path)
-  if (declared > limit) throw tooLarge(limit)
+  if (declared > limit.bytes) throw tooLarge(limit)
   ;(event as unknown as { _requestBody?: Buffer })._requestBody = await readLimited(event, limit)
 })

@@ -15,8 +15,8 @@ export const BODY_LIMITS: ReadonlyArray<{ method: string, path: RegExp, bytes: n
   { method: 'POST', path: /^\/api\/projects\/[^/]+\/maps$/, bytes: 32_000_000, why: 'a computed map (every cell, crossing and traced curve)' },
 ]
 
-/** The byte limit of a request. */
-export function bodyLimitFor(method: string, path: string): number {
+/** The byte limit of a request, and what the route takes (for the 413 message). */
+export function bodyLimitFor(method: string, path: string): { bytes: number, why: string } {
   const pathname = path.split('?')[0]!
-  return BODY_LIMITS.find(l => l.method === method && l.path.test(pathname))?.bytes ?? Number(useRuntimeConfig().bodyLimit.defaultBytes)
+  return BODY_LIMITS.find(l => l.method === method && l.path.test(pathname)) ?? { bytes: Number(useRuntimeConfig().bodyLimit.defaultBytes), why: 'the default for every route' }
 }
