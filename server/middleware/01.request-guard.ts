@@ -7,7 +7,8 @@
  *   session cookie is SameSite=Lax on top of this (OWASP CSRF Prevention Cheat Sheet, "Verifying
  *   origin with standard headers");
  * - every API route reads JSON: a body of any other content type is 415, so a cross-site HTML
- *   form (which cannot send application/json) never reaches a handler.
+ *   form (which cannot send application/json) never reaches a handler. The one exception is the
+ *   documented streamed uploads of server/utils/body-limits.ts (a project archive as application/zip).
  */
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS'])
 
@@ -28,7 +29,9 @@ export default defineEventHandler((event) => {
     }
   }
   const hasBody = Number(headers['content-length'] ?? 0) > 0 || headers['transfer-encoding'] !== undefined
-  if (hasBody && !/^application\/([\w.+-]+\+)?json\s*(;|$)/i.test(headers['content-type'] ?? '')) {
+  const type = headers['content-type'] ?? ''
+  const streamed = streamedUploadFor(event.method, event.path)
+  if (hasBody && !/^application\/([\w.+-]+\+)?json\s*(;|$)/i.test(type) && !streamed?.contentType.test(type)) {
     throw httpError(415, 'unsupported_media_type', 'Send the body as JSON (Content-Type: application/json).')
   }
 })

@@ -2,7 +2,7 @@
  * Read every request body here, counting bytes as they arrive, and answer 413 as soon as it
  * passes its limit (server/utils/body-limits.ts), whether it announced a Content-Length or came
  * chunked. The bytes read are handed to h3 (`event._requestBody`), so handlers read the body as
- * usual and never see more than the limit.
+ * usual and never see more than the limit. Streamed uploads (STREAMED_UPLOADS) limit themselves.
  */
 import type { H3Event } from 'h3'
 
@@ -36,7 +36,7 @@ function readLimited(event: H3Event, limit: { bytes: number, why: string }): Pro
 }
 
 export default defineEventHandler(async (event) => {
-  if (!WITH_BODY.has(event.method)) return
+  if (!WITH_BODY.has(event.method) || streamedUploadFor(event.method, event.path)) return
   const headers = event.node.req.headers
   const declared = Number(headers['content-length'] ?? 0)
   if (!declared && headers['transfer-encoding'] === undefined) return

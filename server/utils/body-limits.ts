@@ -20,3 +20,20 @@ export function bodyLimitFor(method: string, path: string): { bytes: number, why
   const pathname = path.split('?')[0]!
   return BODY_LIMITS.find(l => l.method === method && l.path.test(pathname)) ?? { bytes: Number(useRuntimeConfig().bodyLimit.defaultBytes), why: 'the default for every route' }
 }
+
+/**
+ * Uploads that are not JSON and are read as a stream by their handler, which enforces its own
+ * limits while reading: the middleware neither buffers them nor refuses their content type.
+ */
+export const STREAMED_UPLOADS: ReadonlyArray<{ method: string, path: RegExp, contentType: RegExp, why: string }> = [
+  {
+    method: 'POST', path: /^\/api\/projects\/import$/, contentType: /^application\/(zip|x-zip-compressed|octet-stream)\b/i,
+    why: 'a project archive (zip), limited while it streams by archiveImport.* (docs/archives.md)',
+  },
+]
+
+/** The streamed upload a request is, if any. */
+export function streamedUploadFor(method: string, path: string) {
+  const pathname = path.split('?')[0]!
+  return STREAMED_UPLOADS.find(u => u.method === method && u.path.test(pathname))
+}
