@@ -224,6 +224,12 @@ export const mailMessages = sqliteTable('mail_messages', {
   kind: text('kind').notNull().default(''),
   /** Message-ID header we set, so the fake SMTP server can match what it received to this row. */
   messageId: text('message_id'),
+  /**
+   * What delivery needs and admins must not see: the rendered text and HTML with their working
+   * single-use link (JSON), kept only while the message waits for delivery and dropped once it is
+   * sent or has failed for good. `text_body` / `html_body` hold the redacted copy the outbox shows.
+   */
+  deliveryBody: text('delivery_body'),
   /** Delivery attempts so far; retried with exponential backoff until `next_attempt_at`. */
   attempts: integer('attempts').notNull().default(0),
   nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }),
@@ -256,9 +262,27 @@ export const signInFailures = sqliteTable('sign_in_failures', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   email: text('email').notNull(),
   ip: text('ip').notNull(),
+  /** `sign-in` (a failed sign-in) or `reset` (a password-reset request, limited separately). */
+  kind: text('kind').notNull().default('sign-in'),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 }, t => [index('sign_in_failures_email_idx').on(t.email, t.createdAt), index('sign_in_failures_ip_idx').on(t.ip, t.createdAt)])
+
+/**
+ * Signed-in sessions: the sealed cookie carries a random session key, only its SHA-256 is stored
+ * here. A request whose key has no row (signed out, ended by a password change or reset, or
+ * past its idle or absolute lifetime) is treated as signed out.
+ */
+export const sessions = sqliteTable('sessions', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  keyHash: text('key_hash').notNull(),
+  userAgent: text('user_agent').notNull().default(''),
+  ip: text('ip').notNull().default(''),
+  lastSeenAt: integer('last_seen_at', { mode: 'timestamp_ms' }).notNull().$defaultFn(() => new Date()),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [uniqueIndex('sessions_key_hash_unique').on(t.keyHash), index('sessions_user_idx').on(t.userId)])
 
 /**
  * A saved moduli map: its settings, the whole result (cells with their states, rows, crossings,
