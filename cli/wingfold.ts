@@ -19,6 +19,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   schema: () => import('./commands/schema'),
   follow: () => import('./commands/follow'),
   map: () => import('./commands/map'),
+  census: () => import('./commands/census'),
 }
 
 async function help(): Promise<string> {

@@ -8,13 +8,13 @@
  * degree 1), and deleting it gives a connected map of no larger genus and no more vertices, so a
  * search bounded by genus and by vertices reaches every map. A child is accepted only if the added
  * edge lies in the automorphism orbit of the child's canonical deletable edge: among the
- * deletable edges of least invariant (kind, end degrees), the one holding the smallest label of
- * the canonical numbering (map-code.ts). Accepted children of one parent that are isomorphic are
+ * deletable edges of least invariant (kind, end degrees), the one holding the root of the least
+ * code over their darts (map-code.ts). Accepted children of one parent that are isomorphic are
  * merged by their codes (McKay's second condition, checked on the parent's children only), so the
  * search is a tree with one node per isomorphism class and needs no global table.
  * Corner after dart d = the slot between d and σ(d); it lies in the face of σ(d).
  */
-import { canonicalize, mapShape, traverse } from './map-code'
+import { canonicalize, mapShape } from './map-code'
 
 /** Bounds of the search. */
 export interface MapSearchBounds {
@@ -33,21 +33,27 @@ export interface GeneratedMap {
   edges: number
   faces: number
   genus: number
+  /** Canonical code over the roots on least-invariant deletable edges (not the census key: see enumerate.ts). */
   code: Int32Array
   /** |Aut| (orientation-preserving automorphisms). */
   automorphisms: number
 }
 
-/** Kind of an edge for the invariant: 0 pendant, 1 loop, 2 other; −1 when not deletable. */
-function edgeKinds(sigma: Int32Array, vertexOf: Int32Array, degree: number[], nVertices: number): Int32Array {
-  const n = sigma.length, E = n / 2
+/**
+ * Kind of an edge for the invariant: 0 pendant, 1 loop, 2 other non-bridge; −1 when not
+ * deletable. Bridges are only looked for when the map has neither pendant edges nor loops (they
+ * would win anyway), which keeps the O(E²) test off most maps.
+ */
+function edgeKinds(vertexOf: Int32Array, degree: number[], nVertices: number): Int32Array {
+  const E = vertexOf.length / 2
   const kind = new Int32Array(E)
+  let easy = false
   for (let e = 0; e < E; e++) {
     const a = vertexOf[2 * e]!, b = vertexOf[2 * e + 1]!
-    if (a === b) kind[e] = 1
-    else if (degree[a] === 1 || degree[b] === 1) kind[e] = 0
-    else kind[e] = isBridge(e, vertexOf, nVertices) ? -1 : 2
+    kind[e] = a === b ? 1 : (degree[a] === 1 || degree[b] === 1) ? 0 : 2
+    if (kind[e]! < 2) easy = true
   }
+  if (!easy) for (let e = 0; e < E; e++) if (isBridge(e, vertexOf, nVertices)) kind[e] = -1
   return kind
 }
 
@@ -78,15 +84,17 @@ function edgeInvariant(e: number, kind: Int32Array, vertexOf: Int32Array, degree
 }
 
 /**
- * Tests McKay's first condition for the child `sigma` whose last edge (darts n−2, n−1) was added.
- * Returns the canonical data when accepted, null otherwise.
+ * Tests McKay's first condition for the child `sigma` whose last edge (darts n−2, n−1) was added:
+ * the canonical code is taken over the roots on deletable edges of least invariant only (an
+ * Aut-invariant set, see `canonicalize`), and the canonical deletable edge is the one holding the
+ * root of that code. Returns the code (for merging siblings) and the optimal roots when accepted.
  */
 export function acceptChild(sigma: Int32Array): { code: Int32Array, roots: number[] } | null {
   const n = sigma.length, E = n / 2
   const shape = mapShape(sigma)
   const vertexOf = shape.vertices.of
   const degree = shape.vertices.sizes
-  const kind = edgeKinds(sigma, vertexOf, degree, shape.vertices.count)
+  const kind = edgeKinds(vertexOf, degree, shape.vertices.count)
   const inv = new Float64Array(E)
   let best = Infinity
   for (let e = 0; e < E; e++) {
@@ -95,20 +103,10 @@ export function acceptChild(sigma: Int32Array): { code: Int32Array, roots: numbe
   }
   const added = E - 1
   if (inv[added] !== best) return null
-  const canon = canonicalize(sigma)
-  let ties = 0
-  for (let e = 0; e < E; e++) if (inv[e] === best) ties++
-  if (ties === 1) return canon
-  const label = new Int32Array(n), order = new Int32Array(n)
-  for (const r of canon.roots) {
-    traverse(sigma, r, label, order)
-    let minLabel = Infinity, minEdge = -1
-    for (let d = 0; d < n; d++) {
-      if (inv[d >> 1] === best && label[d]! < minLabel) { minLabel = label[d]!; minEdge = d >> 1 }
-    }
-    if (minEdge === added) return canon
-  }
-  return null
+  const candidates: number[] = []
+  for (let e = 0; e < E; e++) if (inv[e] === best) candidates.push(2 * e, 2 * e + 1)
+  const canon = canonicalize(sigma, candidates)
+  return canon.roots.some(r => r >> 1 === added) ? canon : null
 }
 
 /** Children of a map (all augmentations within the bounds), each as σ on n + 2 darts. */

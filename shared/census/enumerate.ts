@@ -57,7 +57,7 @@ export function isCensusMap(m: GeneratedMap): boolean {
 /** Describes a census map. */
 export function describeCensusMap(m: GeneratedMap): CensusPattern {
   const sh = mapShape(m.sigma)
-  const code = codeToString(m.code)
+  const code = codeToString(canonicalize(m.sigma).code)
   const mirrorCode = codeToString(canonicalize(mirrorSigma(m.sigma)).code)
   return {
     code, mirrorCode, chiral: code !== mirrorCode,

@@ -23,21 +23,6 @@ export interface Canonical {
   roots: number[]
 }
 
-/** Writes the traversal labels from `root` into label/order (scratch arrays of length n). */
-export function traverse(sigma: Int32Array, root: number, label: Int32Array, order: Int32Array): void {
-  const n = sigma.length
-  label.fill(-1)
-  label[root] = 0; order[0] = root
-  let next = 1
-  for (let i = 0; i < n; i++) {
-    const d = order[i]!
-    const s = sigma[d]!
-    if (label[s]! < 0) { label[s] = next; order[next++] = s }
-    const t = d ^ 1
-    if (label[t]! < 0) { label[t] = next; order[next++] = t }
-  }
-}
-
 /**
  * Code from one root compared with `best` as it is written: returns −1 (smaller: `out` holds the
  * new code), 0 (equal), 1 (larger: abandoned early, `out` is partial).
@@ -69,13 +54,19 @@ function codeFromRoot(
   return state
 }
 
-/** Canonical code and automorphism orbit of the roots of a connected map. */
-export function canonicalize(sigma: Int32Array): Canonical {
+/**
+ * Canonical code and automorphism orbit of the roots of a connected map. With `candidates` (a set
+ * of darts that every automorphism maps onto itself, e.g. chosen by an invariant), only those are
+ * tried as roots: the least code among them is still a canonical form, and the roots reaching it
+ * are still one free Aut orbit, so their number is still |Aut|.
+ */
+export function canonicalize(sigma: Int32Array, candidates?: readonly number[]): Canonical {
   const n = sigma.length
   const label = new Int32Array(n), order = new Int32Array(n)
   let best = new Int32Array(2 * n), scratch = new Int32Array(2 * n)
   let roots: number[] = []
-  for (let r = 0; r < n; r++) {
+  const tries = candidates ?? Array.from({ length: n }, (_, d) => d)
+  for (const r of tries) {
     const c = codeFromRoot(sigma, r, roots.length ? best : null, scratch, label, order)
     if (c < 0) { [best, scratch] = [scratch, best]; roots = [r] } else if (c === 0) roots.push(r)
   }
