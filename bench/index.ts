@@ -10,6 +10,7 @@
  * own (a parallel redrawing): F_u is singular for m > 1 and their lattice families cannot be
  * continued. The lattice section therefore shears supercells of the degree-6 demo net
  * "six-wing-lattice", which stay rigid (tests/unit/pattern/rigidity-sparse.test.ts).
+ * The census section (bench/census.ts) follows.
  * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k)
  */
 import { performance } from 'node:perf_hooks'
@@ -162,3 +163,6 @@ for (const m of [32, 71, 100]) {
 }
 const shearExp = Math.log(shear[2]!.stepMs / shear[0]!.stepMs) / Math.log(shear[2]!.V / shear[0]!.V)
 console.log(`growth exponent of the shear step time, V = ${shear[0]!.V} → ${shear[2]!.V}: ${shearExp.toFixed(2)}  (target ≤ 1.3: ${shearExp <= 1.3 ? 'met' : 'MISSED'})`)
+
+// census section (bench/census.ts): patterns per second and the count by N
+await import('./census')
