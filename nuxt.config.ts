@@ -31,6 +31,8 @@ export default defineNuxtConfig({
     signInLimit: { perAccount: 5, perAddress: 30, windowMinutes: 15 },
     smtpUrl: '',
     mailFrom: 'Wingfold <no-reply@wingfold.local>',
+    /** Redis URL for census jobs on BullMQ workers; empty: census jobs run in the web process. */
+    censusRedisUrl: '',
     public: {
       appVersion: '0.1.0',
       baseUrl: 'http://localhost:3000',

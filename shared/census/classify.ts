@@ -82,8 +82,21 @@ function separateCoincident(doc: PatternDocument): PatternDocument {
   }
 }
 
+/**
+ * Loops whose tree–cotree shift is zero: null-homologous, hence contractible on the torus, and a
+ * straight segment from p to p + T(0) has no length. No straight-line drawing exists.
+ */
+function contractibleLoops(doc: PatternDocument): string[] {
+  return doc.edges.filter(e => e.from === e.to && e.shift?.[0] === 0 && e.shift?.[1] === 0).map(e => e.id)
+}
+
 function attempt(sigma: Int32Array, name: string, lattice: CensusLattice): Attempt {
-  let drawn = parsePatternDocument(censusDocument(sigma, name, lattice))
+  const raw = censusDocument(sigma, name, lattice)
+  const loops = contractibleLoops(raw)
+  if (loops.length) {
+    return { ok: false, reason: `loop${loops.length > 1 ? 's' : ''} ${loops.join(', ')} ${loops.length > 1 ? 'are' : 'is'} contractible on the torus: no straight-line drawing exists`, document: raw, report: null }
+  }
+  let drawn = parsePatternDocument(raw)
   const collapsed = zeroLengthEdges(drawn)
   if (collapsed.length) drawn = separateCoincident(drawn)
   const b = balancePattern(drawn)
@@ -113,6 +126,8 @@ export function classifyCensusMap(sigma: Int32Array, name: string, options: Clas
     const a = attempt(sigma, name, l)
     first ??= a
     if (a.ok) { found = a; foundAt = l; break }
+    // a contractible loop has zero shift on every lattice: no other lattice can help
+    if (a.report === null && a.reason?.includes('contractible')) break
   }
   const a = found ?? first!
   const v = found?.report?.verdicts
