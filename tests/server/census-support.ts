@@ -11,7 +11,7 @@ export async function waitForJob(c: ApiClient, id: number, done: (j: JobBody) =>
     const r = await c.json('GET', `/api/census/jobs/${id}`)
     last = r.body as JobBody
     if (done(last)) return last
-    await new Promise(resolve => setTimeout(resolve, 100)) // poll interval while waiting for the condition
+    await new Promise(resolve => setTimeout(resolve, 20)) // poll interval while waiting for the condition
   }
   throw new Error(`census job ${id} did not reach the state in time; last: ${JSON.stringify(last)}`)
 }
