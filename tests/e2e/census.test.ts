@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest'
 import { useServerAndBrowser } from '../support/fixtures'
 import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
+import { enumerateCensus } from '../../shared/census/enumerate'
 
 const ctx = useServerAndBrowser()
 
@@ -17,11 +18,20 @@ describe('census page', () => {
     await gotoHydrated(page, `${ctx.server.url}/census`)
     await page.waitForSelector('text=No census has run yet.')
     await page.fill('[data-testid=census-towers]', '2')
-    await page.fill('[data-testid=census-half-edges]', '10')
+    await page.fill('[data-testid=census-half-edges]', '14')
     await page.click('[data-testid=census-start]')
     await page.waitForSelector('[data-testid=census-progress] >> text=done', { timeout: 120_000 })
-    await page.waitForFunction(() => document.querySelectorAll('[data-testid=census-table] tbody tr').length >= 3)
-    await expect.poll(() => page.textContent('[data-testid=census-total]')).toMatch(/^\d+ patterns$/)
+    const expected = [...enumerateCensus({ maxTowers: 2, maxHalfEdges: 14 })].length
+    await expect.poll(() => page.locator('[data-testid=census-table] tbody tr').count(), { timeout: 30_000 }).toBe(expected)
+    // a chiral class names its mirror class, which names it back
+    const mirrorOf = new Map<string, string>()
+    for (const cell of await page.locator('[data-testid^=census-mirror-]').all()) {
+      const m = /mirror #(\d+)/.exec((await cell.textContent()) ?? '')
+      if (m) mirrorOf.set((await cell.getAttribute('data-testid'))!.replace('census-mirror-', ''), m[1]!)
+    }
+    expect(mirrorOf.size).toBeGreaterThan(0)
+    for (const [id, other] of mirrorOf) { expect(other).not.toBe(id); expect(mirrorOf.get(other)).toBe(id) }
+    expect(await page.textContent('[data-testid=census-total]')).toBe(`${expected} patterns`)
     expect(await page.textContent('body')).toContain('Results are numerical evidence, not proofs.')
     await screenshot(page, 'census-table')
 
