@@ -77,6 +77,8 @@ export default defineNuxtConfig({
     // project archive import limits (docs/archives.md) and scheduled backups (docs/backups.md)
     archiveImport: { maxMb: 64, maxEntries: 64, maxInflatedMb: 256, maxRatio: 100 },
     backup: { intervalMinutes: 0, dir: './data/backups', keep: 7 },
+    /** Redis URL for census jobs on BullMQ workers; empty: census jobs run in the web process. */
+    censusRedisUrl: '',
     public: {
       appVersion: '0.1.0',
       baseUrl: 'http://localhost:3000',

@@ -11,6 +11,7 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-or
 import {
   PROJECT_ROLES, SITE_ROLES, RUN_STATUSES, VERIFICATION_STATES, TOKEN_SCOPES,
 } from '../../shared/types/roles'
+import { CENSUS_JOB_STATUSES, CENSUS_QUEUES } from '../../shared/types/census'
 
 const createdAt = () => integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date())
 const updatedAt = () => integer('updated_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date()).$onUpdateFn(() => new Date())
@@ -313,3 +314,55 @@ export const maps = sqliteTable('maps', {
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 }, t => [index('maps_project_idx').on(t.projectId)])
+
+/**
+ * A census job: enumerate and classify every torus gluing pattern within the bounds
+ * (shared/census). Progress counters are written as it runs; `options` holds the lattice and the
+ * τ search switch as JSON.
+ */
+export const censusJobs = sqliteTable('census_jobs', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  status: text('status', { enum: CENSUS_JOB_STATUSES }).notNull().default('queued'),
+  queue: text('queue', { enum: CENSUS_QUEUES }).notNull(),
+  maxTowers: integer('max_towers').notNull(),
+  maxHalfEdges: integer('max_half_edges').notNull(),
+  options: text('options').notNull().default('{}'),
+  visited: integer('visited').notNull().default(0),
+  found: integer('found').notNull().default(0),
+  classified: integer('classified').notNull().default(0),
+  error: text('error'),
+  createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+  finishedAt: integer('finished_at', { mode: 'timestamp_ms' }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+})
+
+/** One census pattern class (unique canonical code) with its verdicts and its drawing. */
+export const censusPatterns = sqliteTable('census_patterns', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  code: text('code').notNull(),
+  mirrorCode: text('mirror_code').notNull(),
+  chiral: integer('chiral', { mode: 'boolean' }).notNull(),
+  towers: integer('towers').notNull(),
+  edges: integer('edges').notNull(),
+  halfEdges: integer('half_edges').notNull(),
+  faces: integer('faces').notNull(),
+  /** Degrees descending, comma-separated ("6,4,4"): filterable as text. */
+  degrees: text('degrees').notNull(),
+  faceSizes: text('face_sizes').notNull(),
+  predictedGenus: integer('predicted_genus').notNull(),
+  automorphisms: integer('automorphisms').notNull(),
+  balanced: integer('balanced', { mode: 'boolean' }).notNull(),
+  reason: text('reason'),
+  rigid: integer('rigid', { mode: 'boolean' }),
+  phaseKernelDimension: integer('phase_kernel_dimension'),
+  tau: text('tau').notNull(),
+  failing: text('failing').notNull(),
+  document: text('document').notNull(),
+  jobId: integer('job_id').references(() => censusJobs.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [
+  uniqueIndex('census_patterns_code_unique').on(t.code),
+  index('census_patterns_towers_idx').on(t.towers, t.predictedGenus),
+])
