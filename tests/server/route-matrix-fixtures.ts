@@ -17,6 +17,10 @@ import { sqlOnServer } from './team-support'
 export interface Ids {
   project: number, graph: number, run: number, map: number, comment: number, invitation: number,
   member: number, token: number, message: number, link: string
+  /** A census job: census jobs belong to the server, not to a project (any signed-in user sees them). */
+  census: number
+  /** A pattern found by that census. */
+  censuspattern: number
   document: PatternDocument, mapSettings: MapSettings, mapResult: MapResult, runSettings: unknown, runExport: unknown, batch: unknown
 }
 
@@ -65,21 +69,33 @@ export async function buildFixtures(server: TestServer, c: { owner: ApiClient, e
   const graph = await graphIdByName(c.owner, project, fermat.title)
   const run = await makeRun(c.editor, project, graph)
   const runExport = (await c.editor.json('GET', `/api/runs/${run}/export.json`)).body
-  const common = { document: fermat.document, mapSettings: MAP_SETTINGS, mapResult: MAP_RESULT, runSettings: RUN_SETTINGS, runExport, batch: { points: batches[1]!.points, specialPoints: batches[1]!.specialPoints }, link: 'x'.repeat(43) }
+  const common = { census: 0, censuspattern: 0, document: fermat.document, mapSettings: MAP_SETTINGS, mapResult: MAP_RESULT, runSettings: RUN_SETTINGS, runExport, batch: { points: batches[1]!.points, specialPoints: batches[1]!.specialPoints }, link: 'x'.repeat(43) }
   const invitation = await makeInvitation(c.owner, project)
+  // a tiny census (one tower, up to 4 half-edges) so the census routes have a job to address
+  const census = (await ok(c.owner.json('POST', '/api/census/jobs', { maxTowers: 1, maxHalfEdges: 4 })) as { id: number }).id
+  let censuspattern = MISSING
+  for (let i = 0; i < 400 && censuspattern === MISSING; i++) {
+    const job = (await ok(c.owner.json('GET', `/api/census/jobs/${census}`))) as { status: string }
+    if (['done', 'failed', 'cancelled'].includes(job.status)) {
+      const list = (await ok(c.owner.json('GET', '/api/census/patterns'))) as { patterns: Array<{ id: number }> }
+      censuspattern = list.patterns[0]?.id ?? MISSING
+      break
+    }
+    await new Promise(r => setImmediate(r))
+  }
   const [msg] = await sqlOnServer(server, 'SELECT max(id) AS id FROM mail_messages')
   const own: Ids = {
     ...common, project, graph, run, map: await makeMap(c.editor, project, graph), comment: await makeComment(c.editor, run), invitation,
-    member: await makeMember(server, project, c.spareUserId), token: MISSING, message: Number(msg!.id),
+    member: await makeMember(server, project, c.spareUserId), token: MISSING, message: Number(msg!.id), census, censuspattern,
   }
   const fProject = (await ok(c.outsider.json('POST', '/api/projects', { name: 'Outsider project' })) as { id: number }).id
   const fGraph = (await ok(c.outsider.json('POST', `/api/projects/${fProject}/graphs`, { name: 'outsider pattern', document: fermat.document })) as { id: number }).id
   const fRun = await makeRun(c.outsider, fProject, fGraph)
   const foreign: Ids = {
     ...common, project: fProject, graph: fGraph, run: fRun, map: await makeMap(c.outsider, fProject, fGraph), comment: await makeComment(c.outsider, fRun),
-    invitation: await makeInvitation(c.outsider, fProject), member: c.outsiderId, token: MISSING, message: MISSING,
+    invitation: await makeInvitation(c.outsider, fProject), member: c.outsiderId, token: MISSING, message: MISSING, census, censuspattern,
   }
-  const missing: Ids = { ...common, project: MISSING, graph: MISSING, run: MISSING, map: MISSING, comment: MISSING, invitation: MISSING, member: MISSING, token: MISSING, message: MISSING }
+  const missing: Ids = { ...common, project: MISSING, graph: MISSING, run: MISSING, map: MISSING, comment: MISSING, invitation: MISSING, member: MISSING, token: MISSING, message: MISSING, census: MISSING, censuspattern: MISSING }
   return { own, foreign, missing }
 }
 

@@ -42,7 +42,8 @@ function expected(s: RouteSpec, who: Identity, variant: Variant): 'allowed' | 'a
   const token = who.endsWith('token')
   if (s.access === 'session' && token) return 401
   if (who === 'read token' && s.method !== 'GET') return 403
-  if (s.access === 'user' || s.access === 'session') return 'allowed'
+  // server-wide objects (census jobs and patterns) are seen by every signed-in user; a missing one is 404
+  if (s.access === 'user' || s.access === 'session') return variant === 'missing' && s.path.includes(':census') ? 404 : 'allowed'
   if (s.access === 'admin') return who !== 'site admin' ? 403 : variant === 'missing' ? 404 : 'allowed'
   if (variant !== 'own') return 404
   const role = ROLE_OF[who]
