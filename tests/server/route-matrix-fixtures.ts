@@ -71,13 +71,14 @@ export async function buildFixtures(server: TestServer, c: { owner: ApiClient, e
   const runExport = (await c.editor.json('GET', `/api/runs/${run}/export.json`)).body
   const common = { census: 0, censuspattern: 0, document: fermat.document, mapSettings: MAP_SETTINGS, mapResult: MAP_RESULT, runSettings: RUN_SETTINGS, runExport, batch: { points: batches[1]!.points, specialPoints: batches[1]!.specialPoints }, link: 'x'.repeat(43) }
   const invitation = await makeInvitation(c.owner, project)
-  // a tiny census (one tower, up to 4 half-edges) so the census routes have a job to address
-  const census = (await ok(c.owner.json('POST', '/api/census/jobs', { maxTowers: 1, maxHalfEdges: 4 })) as { id: number }).id
+  // a tiny census (one tower, up to 6 half-edges: the three-loop pattern, H. Chen, M. Traizet,
+  // arXiv 2103.15676, 2021, Ex. 7.2) so the census routes have a job to address
+  const census = (await ok(c.owner.json('POST', '/api/census/jobs', { maxTowers: 1, maxHalfEdges: 6 })) as { id: number }).id
   let censuspattern = MISSING
   for (let i = 0; i < 400 && censuspattern === MISSING; i++) {
-    const job = (await ok(c.owner.json('GET', `/api/census/jobs/${census}`))) as { status: string }
+    const job = (await ok(c.owner.json('GET', `/api/census/jobs/${census}`), 200)) as { status: string }
     if (['done', 'failed', 'cancelled'].includes(job.status)) {
-      const list = (await ok(c.owner.json('GET', '/api/census/patterns'))) as { patterns: Array<{ id: number }> }
+      const list = (await ok(c.owner.json('GET', '/api/census/patterns'), 200)) as { patterns: Array<{ id: number }> }
       censuspattern = list.patterns[0]?.id ?? MISSING
       break
     }

@@ -56,7 +56,7 @@ export const ROUTES: Record<string, RouteSpec> = {
   'census/jobs/[id]/cancel.post.ts': { method: 'POST', path: '/api/census/jobs/:census/cancel', access: 'user' },
   'census/jobs/[id]/resume.post.ts': { method: 'POST', path: '/api/census/jobs/:census/resume', access: 'user' },
   'census/jobs/index.get.ts': { method: 'GET', path: '/api/census/jobs', access: 'user' },
-  'census/jobs/index.post.ts': { method: 'POST', path: '/api/census/jobs', access: 'user', body: () => ({ maxTowers: 1, maxHalfEdges: 4 }) },
+  'census/jobs/index.post.ts': { method: 'POST', path: '/api/census/jobs', access: 'user', body: () => ({ maxTowers: 1, maxHalfEdges: 6 }) },
   'census/patterns/[id].get.ts': { method: 'GET', path: '/api/census/patterns/:censuspattern', access: 'user' },
   'census/patterns/index.get.ts': { method: 'GET', path: '/api/census/patterns', access: 'user' },
   'compare.get.ts': { method: 'GET', path: '/api/compare?runs=:run', access: 'user' },
