@@ -19,7 +19,7 @@ import { readPatternFile } from '../read-document'
 
 export const summary = 'FILE [--pattern P] [--json] interval certificates of a pattern, or of every point of a run export (with its pattern)'
 
-const NORMS = 'Radii in the max-norm of the unknowns: positions of all vertices but the first (lattice length units), or phases ψ of all vertices but the first (radians).'
+const NORMS = 'Radii in the max-norm of the unknowns: positions of all vertices but the first (lattice length units), or phases ψ of all vertices but the first of each component (radians), on the published level rows of vertical balance.'
 
 async function readJson(file: string): Promise<unknown | { error: string }> {
   try { return JSON.parse(await readFile(file, 'utf8')) } catch (e) { return { error: `${file}: ${(e as Error).message}` } }

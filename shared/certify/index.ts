@@ -8,7 +8,7 @@ export type { ZeroCertificate, NotCertifiedReason, CertifyOptions } from './kraw
 export { certifyZero, proveClaim, DEFAULT_CERTIFY_OPTIONS, resolveCertifyOptions } from './krawczyk'
 export { horizontalSystem } from './horizontal'
 export type { PhaseRow, PhaseSystemData } from './phase'
-export { phaseSystem, phaseSystemFromRows, vertexPhaseRows } from './phase'
+export { phaseSystem, publishedPhaseRows, modelPhaseRows } from './phase'
 export type { PartCertificate, DrawingCertificate, DrawingCertifyOptions } from './pattern'
 export { certifyHorizontal, certifyPhases, certifyDrawing, describeCertificate } from './pattern'
 export type { FamilyPointInput, PointCertificate, FamilyCertifyOptions, CertificateClaim, ClaimVerification, SegmentCertificate } from './family'

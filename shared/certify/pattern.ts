@@ -7,7 +7,7 @@
 import type { Lattice, PatternModel } from '../pattern/model'
 import { certifyZero, type CertifyOptions, type ZeroCertificate } from './krawczyk'
 import { horizontalSystem } from './horizontal'
-import { phaseSystem, vertexPhaseRows, type PhaseRow } from './phase'
+import { modelPhaseRows, phaseSystem } from './phase'
 
 /** A certificate part that does not apply, with the reason. */
 export interface NotApplicable { certified: false; size: number; reason: 'not-covered'; detail: string }
@@ -15,11 +15,8 @@ export interface NotApplicable { certified: false; size: number; reason: 'not-co
 /** One part of a drawing's certificate. */
 export type PartCertificate = ZeroCertificate | NotApplicable
 
-/** Options of {@link certifyDrawing}: the certificate options and the phase row form. */
-export interface DrawingCertifyOptions extends CertifyOptions {
-  /** Rows of the phase system (default: the vertex sums, `vertexPhaseRows`). */
-  phaseRows?: (m: PatternModel) => PhaseRow[]
-}
+/** Options of {@link certifyDrawing} (the phase rows are always the published level rows). */
+export type DrawingCertifyOptions = CertifyOptions
 
 /** Certificate of the horizontal system at positions p (2V) in lattice `lat`. */
 export function certifyHorizontal(m: PatternModel, p: Float64Array, lat: Lattice, options?: CertifyOptions): PartCertificate {
@@ -30,13 +27,16 @@ export function certifyHorizontal(m: PatternModel, p: Float64Array, lat: Lattice
   return certifyZero(sys, p.slice(2), { ...options, symmetric: true })
 }
 
-/** Certificate of the phase system at ψ (V), α and weights K. */
+/**
+ * Certificate of the published phase system (the level rows of vertical balance on cuts of the
+ * drawing (p, lat), the document's drawing by default) at ψ (V), α and weights K.
+ */
 export function certifyPhases(
   m: PatternModel, psi: Float64Array, alpha: readonly [number, number], weights: Float64Array,
-  options?: DrawingCertifyOptions,
+  options?: DrawingCertifyOptions, p: Float64Array = m.positions, lat: Lattice = m.lattice,
 ): PartCertificate {
-  const rows = (options?.phaseRows ?? vertexPhaseRows)(m)
-  const sys = phaseSystem(m, { rows, alpha, weights, psi })
+  const { rows, pinned } = modelPhaseRows(m, p, lat)
+  const sys = phaseSystem(m, { rows, pinned, alpha, weights, psi })
   const x = new Float64Array(sys.n)
   for (let v = 0; v < m.nVertices; v++) if (sys.unknownOf[v]! >= 0) x[sys.unknownOf[v]!] = psi[v]!
   return certifyZero(sys, x, options)
