@@ -8,10 +8,9 @@
  */
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
-import { certifiedChecklist, provenParts, STATUS_WORDS } from '../../shared/certify/checklist'
+import { certifiedExistence, provenParts, STATUS_WORDS } from '../../shared/certify/checklist'
 import { certifyFamilyPoints, certifyFamilySegments } from '../../shared/certify/family'
 import { certifyDrawing, describeCertificate } from '../../shared/certify/pattern'
-import { hypothesesFromReport } from '../../shared/certify/report-hypotheses'
 import { analyzePattern } from '../../shared/pattern/analyze'
 import { compilePattern } from '../../shared/pattern/model'
 import { RUN_EXPORT_FORMAT } from '../../shared/types/runs'
@@ -40,17 +39,20 @@ export async function run(args: string[]): Promise<number> {
   if ('error' in read) { console.error(read.error); return 2 }
   const m = compilePattern(read.doc)
   const cert = certifyDrawing(m, read.doc.phases !== undefined)
-  const checklist = certifiedChecklist(hypothesesFromReport(analyzePattern(read.doc)), provenParts(cert))
+  const existence = certifiedExistence(analyzePattern(read.doc).existence, provenParts(cert))
+  const checklist = existence.items
   const ok = cert.horizontal.certified && (cert.phase === null || cert.phase.certified)
   if (parsed.values.json) {
-    console.log(JSON.stringify({ certificate: cert, checklist, norms: NORMS }, null, 2))
+    console.log(JSON.stringify({ certificate: cert, checklist, existence, norms: NORMS }, null, 2))
   } else {
     console.log(`${read.doc.name}`)
     console.log(`  horizontal balance: ${describeCertificate(cert.horizontal)}`)
     console.log(`  phase balance:      ${cert.phase ? describeCertificate(cert.phase) : 'no phase data (trivial phases)'}`)
     console.log(`  ${NORMS}`)
-    console.log('Hypotheses of the existence theorem:')
+    console.log(`Hypotheses of the existence theorem (${existence.theorem}):`)
     for (const c of checklist) console.log(`  ${c.id.padEnd(4)} ${c.label.padEnd(42)} ${STATUS_WORDS[c.status]}`)
+    console.log(`  ${existence.line}`)
+    if (checklist.some(c => c.status === 'proven-interval')) console.log('  Proven means: a unique zero of the equations within the certified radius, with an invertible Jacobian there (balance and rigidity at that true zero, not at the float drawing).')
     if (!checklist.every(c => c.status === 'proven-interval' || c.status === 'exact')) console.log('Items marked numerical evidence are not proofs.')
   }
   return ok ? 0 : 1

@@ -15,6 +15,6 @@ export type { FamilyPointInput, PointCertificate, FamilyCertifyOptions, Certific
 export { certifyFamilyPoints, certifyFamilySegments, verifyCertificateClaims } from './family'
 export { latticePathBox, phasePathBox } from './segment'
 export type { LatticeBox } from './horizontal'
-export type { HypothesisStatus, HypothesisInput, ChecklistItem, ProvenParts } from './checklist'
-export { certifiedChecklist, provenParts, HYPOTHESIS_LABELS, STATUS_WORDS } from './checklist'
+export type { HypothesisStatus, HypothesisInput, ChecklistItem, ProvenParts, CertifiedExistence } from './checklist'
+export { certifiedChecklist, certifiedExistence, hypothesesOf, provenParts, runProvenParts, HYPOTHESIS_LABELS, STATUS_WORDS, HORIZONTAL_PROOF, PHASE_PROOF } from './checklist'
 export { hypothesesFromReport } from './report-hypotheses'
