@@ -34,6 +34,8 @@ const PHASE = new Set(['T10', 'T11', 'P8', 'P9'])
 
 /** Exactly what the horizontal certificate proves. */
 export const HORIZONTAL_PROOF = 'proven by interval arithmetic: exactly one balanced drawing lies within the certified radius (max-norm, lattice fixed, vertex 0 pinned) and the reduced Jacobian is invertible on that box, so balance and rigidity hold at that true drawing, not at the float drawing itself'
+/** Exactly what the plane certificate proves (shared/certify/plane.ts). */
+export const PLANE_PROOF = 'proven by interval arithmetic: exactly one balanced drawing lies within the certified radius (max-norm; vertex 0, the scale and the held coordinates and wing angles fixed, the others free) with an invertible Jacobian there, so M = [ℓ̄·J | R] has rank 2V at that true drawing: it is balanced and rigid, with a family of balanced drawings of dimension |R| − 2 around it; not at the float drawing itself'
 /** Exactly what the phase certificate proves. */
 export const PHASE_PROOF = 'proven by interval arithmetic: exactly one zero of the level rows of vertical balance on cuts lies within the certified radius of ψ (max-norm, one ψ per component pinned) and their Jacobian is invertible on that box, so vertical balance and phase-rigidity hold at that true zero (K and the length levels as read from the drawing)'
 
@@ -72,7 +74,7 @@ export function certifiedChecklist(items: HypothesisInput[], proven: ProvenParts
   return items.map(({ id, status, label, detail }): ChecklistItem => {
     const base = { id, label: label ?? HYPOTHESIS_LABELS[id] ?? id }
     const withDetail = detail ? { note: detail } : {}
-    if (HORIZONTAL.has(id) && proven.horizontal) return { ...base, status: 'proven-interval', note: HORIZONTAL_PROOF }
+    if (HORIZONTAL.has(id) && proven.horizontal) return { ...base, status: 'proven-interval', note: id.startsWith('P') ? PLANE_PROOF : HORIZONTAL_PROOF }
     if (PHASE.has(id) && proven.phase) return { ...base, status: 'proven-interval', note: PHASE_PROOF }
     if (status === 'fails') return { ...base, status: 'fails', ...withDetail }
     if (status === 'not needed') return { ...base, status: 'not-needed', ...withDetail }

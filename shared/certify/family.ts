@@ -2,8 +2,8 @@
  * Certificates along a family: every saved point (λ, u) of a run is certified on the system the
  * family follows at that λ — horizontal balance at the lattice ω(λ) for lattice paths, the phase
  * system at α(λ), K(λ) for phase paths (the published level rows of the document's drawing,
- * exactly the equations shared/families/phase.ts follows; phase paths do not move the drawing) (plane wing paths are not covered). The same function
- * re-proves a client's claims on the server (`verifyCertificateClaims`).
+ * exactly the equations shared/families/phase.ts follows; phase paths do not move the drawing).
+ * Plane wing paths are not covered. The same function re-proves a client's claims on the server (`verifyCertificateClaims`).
  */
 import { latticePath } from '../families/lattice-paths'
 import { phasePath } from '../families/phase'
@@ -46,7 +46,7 @@ function familySystem(doc: PatternDocument, settings: FamilySettings): SystemAt 
     const { rows, pinned } = modelPhaseRows(m)
     return l => ({ sys: phaseSystem(m, { rows, pinned, alpha: path.alpha(l), weights: path.weights(l), psi: m.psi }), symmetric: false })
   }
-  return () => ({ notCovered: 'plane wing paths: the published rigidity there also moves the wing directions' })
+  return () => ({ notCovered: 'plane wing paths: their unknowns are not the square reduction the plane certificate proves (shared/certify/plane.ts); certify the drawing itself' })
 }
 
 /** Certifies every point; a point of the wrong length is "enclosure too wide" with the reason. */
@@ -116,7 +116,7 @@ function familySystemOver(doc: PatternDocument, settings: FamilySettings): (L: I
       return 'notCovered' in box ? box : { sys: phaseSystem(m, { rows, pinned, alpha: m.alpha, weights: m.weight, psi: m.psi, alphaBox: box.alpha, weightBox: box.weights }), symmetric: false }
     }
   }
-  return () => ({ notCovered: 'plane wing paths: the published rigidity there also moves the wing directions' })
+  return () => ({ notCovered: 'plane wing paths: their unknowns are not the square reduction the plane certificate proves (shared/certify/plane.ts); certify the drawing itself' })
 }
 
 /** Most pieces a segment is split into before it is reported not certified. */

@@ -16,5 +16,7 @@ export { certifyFamilyPoints, certifyFamilySegments, verifyCertificateClaims } f
 export { latticePathBox, phasePathBox } from './segment'
 export type { LatticeBox } from './horizontal'
 export type { HypothesisStatus, HypothesisInput, ChecklistItem, ProvenParts, CertifiedExistence } from './checklist'
-export { certifiedChecklist, certifiedExistence, hypothesesOf, provenParts, runProvenParts, HYPOTHESIS_LABELS, STATUS_WORDS, HORIZONTAL_PROOF, PHASE_PROOF } from './checklist'
+export { certifiedChecklist, certifiedExistence, hypothesesOf, provenParts, runProvenParts, HYPOTHESIS_LABELS, STATUS_WORDS, HORIZONTAL_PROOF, PLANE_PROOF, PHASE_PROOF } from './checklist'
 export { hypothesesFromReport } from './report-hypotheses'
+export type { PlaneReduction } from './plane'
+export { choosePlaneReduction, planeSystem, wingAngles } from './plane'

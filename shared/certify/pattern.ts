@@ -5,8 +5,11 @@
  * of ./krawczyk.ts in the max-norm: positions in lattice length units, phases in radians.
  */
 import type { Lattice, PatternModel } from '../pattern/model'
-import { certifyZero, type CertifyOptions, type ZeroCertificate } from './krawczyk'
+import { certifyZero, DEFAULT_CERTIFY_OPTIONS, type CertifyOptions, type ZeroCertificate } from './krawczyk'
 import { horizontalSystem } from './horizontal'
+import { choosePlaneReduction, planeSystem } from './plane'
+import { balanceJacobian } from '../pattern/balance'
+import { tripletsToDense } from '../pattern/spectrum'
 import { modelPhaseRows, phaseSystem } from './phase'
 
 /** A certificate part that does not apply, with the reason. */
@@ -18,13 +21,27 @@ export type PartCertificate = ZeroCertificate | NotApplicable
 /** Options of {@link certifyDrawing} (the phase rows are always the published level rows). */
 export type DrawingCertifyOptions = CertifyOptions
 
-/** Certificate of the horizontal system at positions p (2V) in lattice `lat`. */
+/**
+ * Certificate of the horizontal system at positions p (2V) in lattice `lat`. Plane drawings:
+ * the published system with the wing directions as unknowns, reduced to a square system by
+ * ./plane.ts (three wing angles and the positions solved for, the other angles and the scale
+ * held); a proof there gives P5, P6 at the true zero and the (|R| − 2)-dimensional family.
+ */
 export function certifyHorizontal(m: PatternModel, p: Float64Array, lat: Lattice, options?: CertifyOptions): PartCertificate {
-  if (m.space !== 'torus') {
-    return { certified: false, size: 0, reason: 'not-covered', detail: 'plane drawings: the published rigidity there also moves the wing directions; only torus drawings are certified' }
-  }
+  if (m.space === 'plane') return certifyPlane(m, p, lat, options)
   const sys = horizontalSystem(m, lat, [p[0]!, p[1]!])
   return certifyZero(sys, p.slice(2), { ...options, symmetric: true })
+}
+
+/** The plane certificate (./plane.ts); "not rigid" when no three wings complete the rank in floating point. */
+function certifyPlane(m: PatternModel, p: Float64Array, lat: Lattice, options?: CertifyOptions): PartCertificate {
+  const n = 2 * m.nVertices + 1
+  const limit = options?.maxSize ?? DEFAULT_CERTIFY_OPTIONS.maxSize
+  if (n > limit) return { certified: false, size: n, reason: 'too-large', detail: `${n} unknowns, more than the limit ${limit}` }
+  const J = tripletsToDense(balanceJacobian(m, p, lat))
+  const red = choosePlaneReduction(m, p, (i, j) => J.get(i, j))
+  if (!red) return { certified: false, size: n, reason: 'not-rigid', detail: 'no choice of wing directions completes the rank of M = [ℓ̄·J | R] in floating point' }
+  return certifyZero(planeSystem(m, red), red.x, options)
 }
 
 /**

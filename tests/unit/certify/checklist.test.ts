@@ -71,13 +71,14 @@ describe('the certified checklist follows the report\'s existence checklist id b
     const ex = certifiedExistence(analyzePattern(noPhases).existence, provenParts(certifyDrawing(compilePattern(noPhases), false)))
     expect(['T9', 'T10', 'T11'].map(id => statusOf(ex.items, id))).toEqual(Array(3).fill('not-needed'))
   })
-  it('equiangular triangle in the plane [C-II Ex. 7]: P1–P9; P5, P6 never proven (plane not covered), P8, P9 proven by the phase certificate', () => {
+  it('equiangular triangle in the plane [C-II Ex. 7]: P1–P9; P5, P6 proven by the plane certificate, P8, P9 by the phase certificate, P7 numerical', () => {
     const doc = planeTriangle(EQUILATERAL, [0, 2 * Math.PI / 3, -2 * Math.PI / 3])
     const cert = certifyDrawing(compilePattern(doc), true)
-    expect(cert.horizontal.certified).toBe(false)
     const ex = certifiedExistence(analyzePattern(doc).existence, provenParts(cert))
     expect(ex.items.map(i => i.id)).toEqual(['P1', 'P2', 'P3', 'P4', 'P5', 'P6', 'P7', 'P8', 'P9'])
-    expect(statusOf(ex.items, 'P6')).toBe('numerical')
+    expect(statusOf(ex.items, 'P5')).toBe('proven-interval')
+    expect(statusOf(ex.items, 'P6')).toBe('proven-interval')
+    expect(statusOf(ex.items, 'P7')).toBe('numerical')
     expect(statusOf(ex.items, 'P8')).toBe('proven-interval')
     expect(statusOf(ex.items, 'P9')).toBe('proven-interval')
   })
