@@ -20,3 +20,4 @@ export { certifiedChecklist, certifiedExistence, hypothesesOf, provenParts, runP
 export { hypothesesFromReport } from './report-hypotheses'
 export type { PlaneReduction } from './plane'
 export { choosePlaneReduction, planeSystem, wingAngles } from './plane'
+export { PLANE_MAX_SIZE } from './pattern'

@@ -5,7 +5,7 @@
  * of ./krawczyk.ts in the max-norm: positions in lattice length units, phases in radians.
  */
 import type { Lattice, PatternModel } from '../pattern/model'
-import { certifyZero, DEFAULT_CERTIFY_OPTIONS, type CertifyOptions, type ZeroCertificate } from './krawczyk'
+import { certifyZero, type CertifyOptions, type ZeroCertificate } from './krawczyk'
 import { horizontalSystem } from './horizontal'
 import { choosePlaneReduction, planeSystem } from './plane'
 import { balanceJacobian } from '../pattern/balance'
@@ -33,10 +33,17 @@ export function certifyHorizontal(m: PatternModel, p: Float64Array, lat: Lattice
   return certifyZero(sys, p.slice(2), { ...options, symmetric: true })
 }
 
-/** The plane certificate (./plane.ts); "not rigid" when no three wings complete the rank in floating point. */
+/**
+ * Default size limit of plane certificates: their column choice (./plane.ts) is dense QR, O(n³);
+ * `npx tsx bench/certify.ts` measured here, over runs under varying load: 241 unknowns 1.2–3.1 s,
+ * 381 unknowns 2.4 s, 553 unknowns 4.0–15 s; 400 keeps a margin under 10 s.
+ */
+export const PLANE_MAX_SIZE = 400
+
+/** The plane certificate (./plane.ts); "not rigid" when the wings cannot complete the rank of M in floating point. */
 function certifyPlane(m: PatternModel, p: Float64Array, lat: Lattice, options?: CertifyOptions): PartCertificate {
   const n = 2 * m.nVertices + 1
-  const limit = options?.maxSize ?? DEFAULT_CERTIFY_OPTIONS.maxSize
+  const limit = options?.maxSize ?? PLANE_MAX_SIZE
   if (n > limit) return { certified: false, size: n, reason: 'too-large', detail: `${n} unknowns, more than the limit ${limit}` }
   const J = tripletsToDense(balanceJacobian(m, p, lat))
   const red = choosePlaneReduction(m, p, (i, j) => J.get(i, j))

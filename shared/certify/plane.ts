@@ -8,10 +8,10 @@
  * Square reduction (our own, derived): J p = 0 (B is homogeneous of degree 0 in p, so scaling is
  * in ker J) and J annihilates translations, so the position columns of M have rank ≤ 2V − 3 and
  * rank 2V needs wing columns. We pin vertex 0 (translations) and add one linear scale equation
- * S(p) = Σ_{v ≥ 1} ⟨p̃_v − p̃_0, p_v⟩ − c = 0 (transverse to scaling, Σ|p̃_v − p̃_0|² ≠ 0). Then
- * pivoted Gram–Schmidt on the float columns of [B-rows; S-row] — the position coordinates of
- * vertices 1..V−1 first, in order, then the wings, largest new direction first — picks 2V + 1
- * columns with independent directions: these are the unknowns; every other position coordinate
+ * S(p) = Σ_{v ≥ 1} ⟨p̃_v − p̃_0, p_v⟩ − c = 0 (transverse to scaling, Σ|p̃_v − p̃_0|² ≠ 0), up to a
+ * positive factor. Then QR with column pivoting on the float columns of [B-rows; S-row] (position
+ * coordinates of vertices 1..V−1 and wing angles) picks 2V + 1 columns with independent
+ * directions: these are the unknowns; every other position coordinate
  * and wing angle is held at its document value (a parameter). Equations:
  *   B(v) = Σ_{closed h at v} u_h + Σ_{wings r at v} (cos θ_r, sin θ_r) = 0 for every v (2V), S = 0.
  * A certificate proves exactly one zero of this square system in the box and an invertible
@@ -54,55 +54,66 @@ export function wingAngles(m: PatternModel): Float64Array {
 }
 
 /**
- * Chooses the unknowns by pivoted Gram–Schmidt on the float columns of [J_o; s] and [R; 0]
- * (J_o: J without vertex 0's columns, s the scale row): each position column that adds a
- * direction (relative `tol`), then wing columns, each the one with the largest component outside
- * the span so far, until the span is everything. Null when the wings cannot complete it: then M
- * has rank below 2V in floating point (not rigid).
+ * Chooses the unknowns by QR with column pivoting (G. H. Golub, C. F. Van Loan, Matrix
+ * Computations, 4th ed., 2013, §5.4.2) on the float columns of M with the scale row,
+ * [ℓ̄·J_o | R; ℓ̄·s | 0] (J_o: J without vertex 0's columns, s the scale row, ℓ̄ the mean closed-
+ * edge length as in M): each step takes the column with the largest component outside the span
+ * so far, until the 2V + 1 (one tower: 2) directions are spanned. Null when the largest remaining
+ * component falls below `tol` relative to the largest column: then M has rank below 2V in
+ * floating point (not rigid). The choice only conditions the proof; rigour never depends on it.
  */
 export function choosePlaneReduction(m: PatternModel, p: Float64Array, J: (i: number, j: number) => number, tol = 1e-8): PlaneReduction | null {
   const V = m.nVertices, scaled = V > 1, rows = 2 * V + (scaled ? 1 : 0)
   const theta = wingAngles(m)
-  const basis: Float64Array[] = []
-  const orthogonalise = (c: Float64Array): number => {
-    for (let pass = 0; pass < 2; pass++) {
-      for (const q of basis) {
-        let d = 0
-        for (let i = 0; i < rows; i++) d += q[i]! * c[i]!
-        for (let i = 0; i < rows; i++) c[i]! -= d * q[i]!
-      }
-    }
-    return Math.hypot(...c)
-  }
-  const push = (c: Float64Array, norm: number) => { for (let i = 0; i < rows; i++) c[i]! /= norm; basis.push(c) }
   const p0x = p[0]!, p0y = p[1]!
-  const freeCoords: number[] = []
+  let total = 0, count = 0
+  for (let e = 0; e < m.nEdges; e++) {
+    const v = m.edgeFrom[e]!, w = m.edgeTo[e]!
+    if (v !== w) { total += Math.hypot(p[2 * w]! - p[2 * v]!, p[2 * w + 1]! - p[2 * v + 1]!); count++ }
+  }
+  const lbar = count ? total / count : 1
+  // candidate columns: position coordinates j = 2..2V−1, then wings
+  const cols: Float64Array[] = []
   for (let j = 2; j < 2 * V; j++) {
     const c = new Float64Array(rows)
-    for (let i = 0; i < 2 * V; i++) c[i] = J(i, j)
+    for (let i = 0; i < 2 * V; i++) c[i] = lbar * J(i, j)
     if (scaled) c[2 * V] = p[j]! - (j % 2 ? p0y : p0x)
-    const size = Math.hypot(...c)
-    const norm = orthogonalise(c)
-    if (norm > tol * size && norm > 0) { push(c, norm); freeCoords.push(j) }
+    cols.push(c)
   }
-  const wingColumn = (r: number) => {
+  for (let r = 0; r < m.nWings; r++) {
     const c = new Float64Array(rows), v = m.vertexOf[2 * m.nEdges + r]!
     c[2 * v] = -Math.sin(theta[r]!); c[2 * v + 1] = Math.cos(theta[r]!)
-    return c
+    cols.push(c)
   }
-  const free: number[] = []
-  while (basis.length < rows) {
-    let best = -1, bestNorm = 0, bestCol: Float64Array | null = null
-    for (let r = 0; r < m.nWings; r++) {
-      if (free.includes(r)) continue
-      const c = wingColumn(r)
-      const norm = orthogonalise(c)
-      if (norm > bestNorm) { best = r; bestNorm = norm; bestCol = c }
+  const norm2 = (c: Float64Array) => { let t = 0; for (let i = 0; i < rows; i++) t += c[i]! * c[i]!; return t }
+  // squared residual norms, downdated by each projection and recomputed when cancellation looms
+  const n2 = cols.map(norm2), first = n2.slice()
+  const top = Math.max(0, ...n2)
+  const taken = new Uint8Array(cols.length)
+  const chosen: number[] = []
+  while (chosen.length < rows) {
+    let best = -1
+    for (let k = 0; k < cols.length; k++) if (!taken[k] && (best < 0 || n2[k]! > n2[best]!)) best = k
+    if (best < 0) return null
+    n2[best] = norm2(cols[best]!)
+    if (!(n2[best]! > tol * tol * top)) return null
+    taken[best] = 1; chosen.push(best)
+    const q = cols[best]!, nq = Math.sqrt(n2[best]!)
+    for (let i = 0; i < rows; i++) q[i]! /= nq
+    for (let k = 0; k < cols.length; k++) {
+      if (taken[k]) continue
+      const c = cols[k]!
+      let d = 0
+      for (let i = 0; i < rows; i++) d += q[i]! * c[i]!
+      if (d === 0) continue
+      for (let i = 0; i < rows; i++) c[i]! -= d * q[i]!
+      n2[k] = n2[k]! - d * d
+      if (n2[k]! < 1e-6 * first[k]!) n2[k] = norm2(c)
     }
-    if (best < 0 || bestNorm <= tol) return null
-    push(bestCol!, bestNorm)
-    free.push(best)
   }
+  const nPos = 2 * V - 2
+  const freeCoords = chosen.filter(k => k < nPos).map(k => k + 2).sort((a, b) => a - b)
+  const free = chosen.filter(k => k >= nPos).map(k => k - nPos).sort((a, b) => a - b)
   const x = Float64Array.from([...freeCoords.map(j => p[j]!), ...free.map(r => theta[r]!)])
   return { freeCoords, free, p: Float64Array.from(p), theta, x, pin: [p0x, p0y] }
 }
@@ -117,10 +128,6 @@ export function planeSystem(m: PatternModel, red: PlaneReduction): IntervalSyste
   red.freeCoords.forEach((j, i) => { coordIndex[j] = i })
   const freeIndex = new Int32Array(W).fill(-1)
   red.free.forEach((r, k) => { freeIndex[r] = nc + k })
-  // scale row over all coordinates of vertices 1..V−1: s_j = p̃_j − p̃_0; c = Σ s_j p̃_j is a fixed
-  // double, so S = Σ s_j p_j − c is the scale equation whatever its rounding
-  const s = Float64Array.from({ length: 2 * V }, (_, j) => (j < 2 ? 0 : red.p[j]! - pin[j % 2]!))
-  const c = s.reduce((acc, sj, j) => acc + sj * red.p[j]!, 0)
   const coord = (lo: Float64Array, hi: Float64Array, v: number, k: number): Interval => {
     const i = coordIndex[2 * v + k]!
     return i < 0 ? point(red.p[2 * v + k]!) : interval(lo[i]!, hi[i]!)
@@ -132,9 +139,18 @@ export function planeSystem(m: PatternModel, red: PlaneReduction): IntervalSyste
   const angle = (lo: Float64Array, hi: Float64Array, r: number): Interval =>
     freeIndex[r]! < 0 ? point(red.theta[r]!) : interval(lo[freeIndex[r]!]!, hi[freeIndex[r]!]!)
   const wingVertex = (r: number) => m.vertexOf[2 * m.nEdges + r]!
+  // scale row over all coordinates of vertices 1..V−1: s_j = p̃_j − p̃_0; c = Σ s_j p̃_j is a fixed
+  // double, so S = Σ s_j p_j − c is the scale equation whatever its rounding
+  const stats = edgeLengthStats(m, e => edge(red.x, red.x, e))
+  const s = Float64Array.from({ length: 2 * V }, (_, j) => (j < 2 ? 0 : red.p[j]! - pin[j % 2]!))
+  // any multiple of the row is the same equation; this one has entries of J's size (1/mean length)
+  // so that the condition estimate of the certificate measures the balance equations, not units
+  const sMax = s.reduce((a, x) => Math.max(a, Math.abs(x)), 0)
+  if (sMax > 0) for (let j = 2; j < 2 * V; j++) s[j] = (s[j]! / sMax) * stats.scale
+  const c = s.reduce((acc, sj, j) => acc + sj * red.p[j]!, 0)
   return {
     n,
-    jacobianScale: edgeLengthStats(m, e => edge(red.x, red.x, e)).scale,
+    jacobianScale: stats.scale,
     residualEnclosure(x: Float64Array): IntervalVector {
       const acc: Interval[] = Array.from({ length: n }, () => point(0))
       for (let e = 0; e < m.nEdges; e++) {

@@ -62,6 +62,15 @@ describe('rigid plane patterns certify, and the reduction has the published fami
   })
 })
 
+describe('size limit', () => {
+  it('above the limit a plane drawing is "not certified: too large", never a proof', () => {
+    const m = compilePattern(squareOfLines())
+    const c = certifyHorizontal(m, m.positions, m.lattice, { maxSize: 8 })
+    expect(c.certified).toBe(false)
+    if (!c.certified) expect(c.reason).toBe('too-large')
+  })
+})
+
 describe('plane patterns that are not rigid never certify', () => {
   it('one tower with wings ±(1, 0) twice (rank M = 1)', () => {
     const doc = { ...oneTower(), wings: [[1, 0], [1, 0], [-1, 0], [-1, 0]].map((direction, i) => ({ id: `w${i}`, vertex: 'o', direction: direction as [number, number] })) }
