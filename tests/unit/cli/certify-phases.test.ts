@@ -3,7 +3,9 @@
  * balance on cuts, H. Chen, M. Traizet, "Gluing Karcher–Scherk saddle towers I", arXiv
  * 2103.15676, 2021, Def. 6.2). Meeks' pattern [CT-I Ex. 7.1] on ω1 = (1, 0), ω2 = (0.3, 1.3):
  * phase Jacobian 2 cos b — a = 2π/3, b = π/3 phase-rigid (certified, T10/T11 proven by interval
- * arithmetic), a = π/3, b = π/2 not phase-rigid (not certified, T11 fails).
+ * arithmetic), a = π/3, b = π/2 not phase-rigid (not certified, T11 fails). The plane: the
+ * equiangular triangle with six wings [H. Chen, Comm. Anal. Geom. 32, 2024, Ex. 7]: rigid with
+ * dim D = 4 = |R| − 2, phase-rigid at ψ = (0, 2π/3, −2π/3) — P5, P6, P8, P9 proven.
  */
 import { execFile } from 'node:child_process'
 import { mkdtemp, writeFile } from 'node:fs/promises'
@@ -11,12 +13,12 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { promisify } from 'node:util'
 import { describe, expect, it } from 'vitest'
-import { meeks } from '../pattern/published-patterns'
+import { EQUILATERAL, meeks, planeTriangle } from '../pattern/published-patterns'
 
 const root = resolve(__dirname, '../../..')
 async function certify(doc: unknown, ...args: string[]) {
   const dir = await mkdtemp(join(tmpdir(), 'wingfold-certify-phases-'))
-  const file = join(dir, 'meeks.wfp.json')
+  const file = join(dir, 'pattern.wfp.json')
   await writeFile(file, JSON.stringify(doc))
   try {
     const r = await promisify(execFile)('node', ['--import', 'tsx', 'cli/wingfold.ts', 'certify', file, ...args], { cwd: root })
@@ -45,5 +47,17 @@ describe('wingfold certify on Meeks [CT-I Ex. 7.1], ω2 = (0.3, 1.3)', () => {
     expect(out.certificate.phase.reason).toBe('not-rigid')
     expect(status(out, 'T11')).toBe('fails')
     expect(status(out, 'T10')).not.toBe('proven-interval')
+  })
+})
+
+describe('wingfold certify on a plane pattern', () => {
+  it('equiangular triangle [C-II Ex. 7]: P5, P6 proven by the plane certificate, P8, P9 by the phase certificate, family of dimension 4 (exit 0)', async () => {
+    const doc = planeTriangle(EQUILATERAL, [0, 2 * Math.PI / 3, -2 * Math.PI / 3])
+    const r = await certify(doc)
+    expect(r.code).toBe(0)
+    expect(r.stdout).toMatch(/P6 +rigid.*proven by interval arithmetic/)
+    expect(r.stdout).toMatch(/P9 +phase-rigid +proven by interval arithmetic/)
+    expect(r.stdout).toMatch(/family of dimension 4 \(\|R\| − 2\)/)
+    expect(r.stdout).not.toMatch(/\bembedded\b/)
   })
 })
