@@ -6,14 +6,16 @@
  * server alone, and the checklist marks rigidity as proven by interval arithmetic.
  * In the workbench, "Certify this drawing" on Meeks' pattern [H. Chen, M. Traizet, arXiv
  * 2103.15676, 2021, Ex. 7.1] on ω1 = (1, 0), ω2 = (0.3, 1.3) (phase Jacobian 2 cos b) proves
- * T10, T11 for a = 2π/3, b = π/3 and refuses a = π/3, b = π/2 (T11 fails).
+ * T10, T11 for a = 2π/3, b = π/3 and refuses a = π/3, b = π/2 (T11 fails); on the equiangular
+ * triangle with six wings [H. Chen, Comm. Anal. Geom. 32, 2024, Ex. 7] it proves P5, P6 (plane
+ * rigidity with the wing directions as unknowns) and P8, P9.
  */
 import { describe, expect, it } from 'vitest'
 import { useServerAndBrowser } from '../support/fixtures'
 import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
 import { signInAs } from '../support/http'
 import { findPatternExample } from '../../shared/examples'
-import { meeks } from '../unit/pattern/published-patterns'
+import { EQUILATERAL, meeks, planeTriangle } from '../unit/pattern/published-patterns'
 import { computeBatches, graphIdByName, projectIdByName } from '../server/runs-helpers'
 
 const ctx = useServerAndBrowser()
@@ -95,6 +97,15 @@ describe('"Certify this drawing" in the workbench verdict panel', () => {
     expect(await status('T10')).toBe('numerical')
     await page.locator('[data-testid=drawing-certificate]').scrollIntoViewIfNeeded()
     await screenshot(page, 'certify-workbench-meeks-flexible')
+    await page.close()
+  }, 120_000)
+  it('equiangular triangle in the plane [C-II Ex. 7]: P5, P6, P8, P9 proven, P7 numerical', async () => {
+    const { page, status } = await certifyInWorkbench('Triangle to certify', planeTriangle(EQUILATERAL, [0, 2 * Math.PI / 3, -2 * Math.PI / 3]))
+    expect(await page.innerText('[data-testid=certificate-horizontal]')).toMatch(/^Balance: certified \(radius/)
+    for (const id of ['P5', 'P6', 'P8', 'P9']) expect(await status(id)).toBe('proven-interval')
+    expect(await status('P7')).toBe('numerical')
+    await page.locator('[data-testid=drawing-certificate]').scrollIntoViewIfNeeded()
+    await screenshot(page, 'certify-workbench-plane-triangle')
     await page.close()
   }, 120_000)
 })
