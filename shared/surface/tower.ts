@@ -76,20 +76,10 @@ export function buildTowerCore(b: MeshBuilder, t: TowerSpec): (j: number, r: num
   // Option A (sector 0 first): the saddle at w = ∞ is the lower one, at ψ, and the even wedges
   // fill the half period above it; otherwise the saddle at w = 0 is at ψ (./karcher.ts).
   const lowerAtInfinity = t.firstHalf[0]!
-  const h0 = saddleHeight(n), hBase = lowerAtInfinity ? h0 - Math.PI : h0
+  const core = symmetricCore(n, N, m, t.cutoff, lowerAtInfinity)
   const place = (j: number, r: number, i: number): [number, number] => {
-    const u = (j % 2 === 0 ? 1 : -1) * t.cutoff * i / m
-    let w: Complex | null
-    if (r % half === 0) {
-      const outer = (r % N === 0) === lowerAtInfinity
-      if (i === 0) return [0, 0]
-      w = i > 0 ? solveOnRay(n, j, Math.abs(u), outer) : solveOnRay(n, (j + 1) % d, Math.abs(u), outer)
-    } else {
-      w = solveInWedge(n, j, hBase + 2 * Math.PI * r / N, u)
-    }
-    if (!w) throw new Error(`surface tower: no point of the ${d}-wing tower at row ${r}, column ${i}`)
-    const p = karcherPoint(n, w)
-    return bendPoint(p.x, p.y, t.angles)
+    const o = 2 * ((j * (N + 1) + r) * (2 * m + 1) + i + m)
+    return bendPoint(core[o]!, core[o + 1]!, t.angles)
   }
   for (let j = 0; j < d; j++) {
     const r0 = t.firstHalf[j] ? 0 : half
@@ -117,4 +107,43 @@ export function buildTowerCore(b: MeshBuilder, t: TowerSpec): (j: number, r: num
     const own = t.firstHalf[j] === inFirst
     return own ? `${p}s${j}:${r}:${m}` : `${p}s${(j - 1 + d) % d}:${r}:${-m}`
   }
+}
+
+const cores = new Map<string, Float64Array>()
+
+/**
+ * Horizontal points (x, y) of the symmetric 2n-wing tower at sector j, row r (0 ≤ r ≤ rows) and
+ * column i (−m ≤ i ≤ m), computed once per (n, rows, m, cutoff, which saddle is lower): every
+ * tower of that degree shares them before bending. Rows outside sector j's half period stay 0.
+ */
+function symmetricCore(n: number, N: number, m: number, cutoff: number, lowerAtInfinity: boolean): Float64Array {
+  const id = `${n}:${N}:${m}:${cutoff}:${lowerAtInfinity}`
+  const found = cores.get(id)
+  if (found) return found
+  const d = 2 * n, half = N / 2
+  const h0 = saddleHeight(n), hBase = lowerAtInfinity ? h0 - Math.PI : h0
+  const out = new Float64Array(2 * d * (N + 1) * (2 * m + 1))
+  for (let j = 0; j < d; j++) {
+    const r0 = (j % 2 === 0) === lowerAtInfinity ? 0 : half
+    for (let r = r0; r <= r0 + half; r++) {
+      for (let i = -m; i <= m; i++) {
+        const u = (j % 2 === 0 ? 1 : -1) * cutoff * i / m
+        let w: Complex | null
+        if (r % half === 0) {
+          const outer = (r % N === 0) === lowerAtInfinity
+          if (i === 0) continue
+          w = i > 0 ? solveOnRay(n, j, Math.abs(u), outer) : solveOnRay(n, (j + 1) % d, Math.abs(u), outer)
+        } else {
+          w = solveInWedge(n, j, hBase + 2 * Math.PI * r / N, u)
+        }
+        if (!w) throw new Error(`surface tower: no point of the ${d}-wing tower at row ${r}, column ${i}`)
+        const p = karcherPoint(n, w)
+        const o = 2 * ((j * (N + 1) + r) * (2 * m + 1) + i + m)
+        out[o] = p.x; out[o + 1] = p.y
+      }
+    }
+  }
+  if (cores.size > 32) cores.clear()
+  cores.set(id, out)
+  return out
 }
