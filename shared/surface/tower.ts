@@ -36,7 +36,7 @@ export interface TowerSpec {
   rows: number
   /** Columns on each side of μ = 0. */
   radial: number
-  /** Cut-off |μ| ≤ M. */
+  /** Cut-off |u| ≤ M (u the conjugate coordinate of ./karcher.ts, about the distance along the wing). */
   cutoff: number
 }
 
