@@ -31,12 +31,13 @@ function tower(n: number, rows: number, radial: number, cutoff: number) {
   return buildSchematic(doc, { rows, radial, cutoff, wingLength: cutoff })
 }
 
-/** Largest distance from a vertex of `m` (mod the vertical period) to the nearest vertex's image under `f`. */
-function symmetryDefect(m: PeriodicMesh, f: (p: [number, number, number]) => [number, number, number]): number {
-  const V = m.positions.length / 3, P = 2 * Math.PI
-  const pts = Array.from({ length: V }, (_, v) => [m.positions[3 * v]!, m.positions[3 * v + 1]!, m.positions[3 * v + 2]!] as [number, number, number])
+/** Largest distance from the image under `f` of a vertex of `m` to the nearest vertex of `target` (mod the vertical period). */
+function symmetryDefect(m: PeriodicMesh, f: (p: [number, number, number]) => [number, number, number], target: PeriodicMesh = m): number {
+  const P = 2 * Math.PI
+  const list = (k: PeriodicMesh) => Array.from({ length: k.positions.length / 3 }, (_, v) => [k.positions[3 * v]!, k.positions[3 * v + 1]!, k.positions[3 * v + 2]!] as [number, number, number])
+  const pts = list(target)
   let worst = 0
-  for (const p of pts) {
+  for (const p of list(m)) {
     const q = f(p)
     let best = Infinity
     for (const r of pts) {
@@ -146,4 +147,43 @@ describe('Karcher–Scherk tower meshes with 2n = 6 and 8 wings (properties deri
       expect(symmetryDefect(m, ([x, y, z]) => [c * x - sn * y, sn * x + c * y, z])).toBeGreaterThan(0.1)
     })
   }
+})
+
+describe('towers bent onto the drawn wing directions', () => {
+  function drawn(angles: number[]) {
+    const doc = parsePatternDocument({
+      format: 'wingfold-pattern', version: 1, name: 'bent tower', space: 'plane',
+      vertices: [{ id: 'o', position: [0, 0] }], edges: [],
+      wings: angles.map((a, k) => ({ id: `w${k}`, vertex: 'o', direction: [Math.cos(a), Math.sin(a)] })),
+    })
+    return buildSchematic(doc, { rows: 12, radial: 4, cutoff: 3, wingLength: 3 }).mesh
+  }
+  it('equally spaced wings turned by 0.3: the symmetric tower turned by 0.3 (a rotation, no bend)', () => {
+    const sym = drawn([0, 1, 2, 3, 4, 5].map(k => k * Math.PI / 3))
+    const turned = drawn([0, 1, 2, 3, 4, 5].map(k => 0.3 + k * Math.PI / 3))
+    const c = Math.cos(0.3), s = Math.sin(0.3)
+    expect(symmetryDefect(sym, ([x, y, z]) => [c * x - s * y, s * x + c * y, z], turned)).toBeLessThan(1e-8)
+    expect(symmetryDefect(turned, ([x, y, z]) => [c * x + s * y, -s * x + c * y, z], sym)).toBeLessThan(1e-8)
+    expect(symmetryDefect(sym, p => p, turned)).toBeGreaterThan(0.1) // the turn is seen
+  })
+  it('uneven wings: heights and distances to the axis kept, every wing end on its drawn direction', () => {
+    const angles = [0, 0.7, 1.9, Math.PI, 3.9, 5.0]
+    const sym = drawn([0, 1, 2, 3, 4, 5].map(k => k * Math.PI / 3)), bent = drawn(angles)
+    for (let v = 0; v < sym.fixed.length; v++) {
+      expect(bent.positions[3 * v + 2]).toBeCloseTo(sym.positions[3 * v + 2]!, 12)
+      expect(Math.hypot(bent.positions[3 * v]!, bent.positions[3 * v + 1]!)).toBeCloseTo(Math.hypot(sym.positions[3 * v]!, sym.positions[3 * v + 1]!), 9)
+    }
+    // Wing ends of the symmetric tower are within 2e^{−3} of their planes (test above), so the
+    // bent ones are within that distance of the drawn directions' planes.
+    const near = new Set<number>()
+    for (let v = 0; v < bent.fixed.length; v++) {
+      if (!bent.fixed[v]) continue
+      const x = bent.positions[3 * v]!, y = bent.positions[3 * v + 1]!
+      const d = angles.map(a => Math.abs(-Math.sin(a) * x + Math.cos(a) * y) + (Math.cos(a) * x + Math.sin(a) * y < 0 ? 1e9 : 0))
+      const k = d.indexOf(Math.min(...d))
+      near.add(k)
+      expect(d[k]).toBeLessThan(2 * Math.exp(-3))
+    }
+    expect(near.size).toBe(6)
+  })
 })
