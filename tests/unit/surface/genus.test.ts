@@ -61,7 +61,7 @@ describe('schematic and relaxed meshes of the demo patterns', () => {
       expect(s.predictedGenus).toBe(predicted)
       const before = meanCurvature(s.mesh).mean
       const r = relaxMesh(s.mesh, { maxIterations: 40 })
-      // The schematic's towers are bent Scherk towers: relaxing must lower the mean |H| clearly.
+      // The schematic is not minimal where the sheets meet the towers: relaxing must lower the mean |H| clearly.
       expect(r.meanH).toBeLessThan(before / 5)
       expect(meanCurvature(s.mesh).mean).toBeCloseTo(r.meanH, 12)
       const t = analyzeTopology(s.mesh)
