@@ -116,13 +116,13 @@ export function analyzePattern(doc: PatternDocument, options?: AnalyzeOptions): 
     orientable: verdicts.orientable.ok,
     drawing: {
       ok: drawingOk,
-      checked: drawing.checked || !drawingOk,
+      checked: drawing.checked,
       detail: [
         drawing.coincidentVertices.length ? `coincident vertices ${drawing.coincidentVertices.map(([a, b]) => `${m.vertexIds[a]}=${m.vertexIds[b]}`).join(', ')}` : '',
         drawing.crossings.length ? `crossing edges ${drawing.crossings.map(([a, b]) => `${m.edgeIds[a]}×${m.edgeIds[b]}`).join(', ')}` : '',
+        drawing.wingCrossings.length ? `crossing wings ${drawing.wingCrossings.map(w => `${m.wingIds[w.wing]}×${w.edge !== undefined ? m.edgeIds[w.edge] : m.wingIds[w.otherWing!]}`).join(', ')}` : '',
         verdicts.cyclicOrder.ok || zero.length ? '' : 'drawn order differs from σ',
         zero.length ? `degenerate: zero-length edge${zero.length > 1 ? 's' : ''} ${zero.map(e => m.edgeIds[e]).join(', ')}` : verdicts.edgeLengths.ok ? '' : 'collapsed edge',
-        drawing.checked ? '' : 'crossings not tested above 400 edges',
       ].filter(Boolean).join('; ') || 'no crossings, distinct points, order = σ',
     },
     balanced: verdicts.balance.ok,
