@@ -237,7 +237,10 @@ function degenerateExplanation(m: PatternModel, zero: number[], what: string): s
   return `Degenerate drawing: edge${zero.length > 1 ? 's' : ''} ${ids} ${zero.length > 1 ? 'have' : 'has'} zero length (${zero.length > 1 ? 'their' : 'its'} ends coincide), so ${what} cannot be judged.`
 }
 
-function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
+/** The verdicts of the drawing's geometry. */
+type GeometricVerdicts = Pick<PatternVerdicts, 'cyclicOrder' | 'edgeLengths' | 'openWings' | 'balance' | 'rigidity' | 'ordinary'>
+
+function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>): GeometricVerdicts {
   const p = m.positions, lat = m.lattice
   const lengths = Array.from(edgeLengths(m, p, lat))
   const zero = zeroLengthEdges(lengths)
@@ -316,7 +319,7 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
  * and order, balance, rigidity and ordinary towers fail as not judgeable (their numbers are
  * NaN / null, shown as "—"), with the edges and their end vertices as witness. Never throws.
  */
-function degenerateGeometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>, lengths: number[], zero: number[]): ReturnType<typeof geometricVerdicts> {
+function degenerateGeometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>, lengths: number[], zero: number[]): GeometricVerdicts {
   const ends = [...new Set(zero.flatMap(e => [m.edgeFrom[e]!, m.edgeTo[e]!]))].sort((a, b) => a - b).map(v => m.vertexIds[v]!)
   const edges = zero.map(e => m.edgeIds[e]!)
   const mean = lengths.reduce((a, l) => a + l, 0) / lengths.length
