@@ -80,7 +80,8 @@ describe('FamilyRunner', () => {
   })
 
   it('reports a refused start as a result', async () => {
-    // the twisted ring of 4 at α1 = 2π: weights cos(π/2) = 0, F_u = 0 (Wiley–Strogatz–Girvan 2006)
+    // the twisted ring of 4 at α1 = 2π: weights cos(π/2) = 0, F_u = 0
+    // (D. A. Wiley, S. H. Strogatz, M. Girvan, "The size of the sync basin", Chaos 16, 015103, 2006)
     const doc = ring(4)
     doc.phases = { alpha: [2 * Math.PI, 0], vertexPhases: { v0: 0, v1: Math.PI / 2, v2: Math.PI, v3: 1.5 * Math.PI } }
     const r = new FamilyRunner(doc, { path: { kind: 'alpha1' }, to: 7, balanceFirst: false })
