@@ -151,12 +151,18 @@ describe('families in the browser', () => {
     const page = await ctx.browser.newPage()
     await ctx.browser.context.clearCookies()
     await signInWithForm(page, ctx.server.url, 'editor')
+    // count the batch uploads on the wire, so the test can wait until none is left after the kill
+    let uploading = 0
+    const isUpload = (r: { url: () => string, method: () => string }) => r.method() === 'POST' && /\/api\/runs\/\d+\/points$/.test(r.url())
+    page.on('request', (r) => { if (isUpload(r)) uploading++ })
+    for (const ev of ['requestfinished', 'requestfailed'] as const) page.on(ev, (r) => { if (isUpload(r)) uploading-- })
     // tiny steps: thousands of points, so the run is still going when the worker is killed
     const runId = await startShear(page, torusId, fermatGraph, 'killed mid-way', { stepMax: '0.0002', maxPoints: '5000' })
     await page.waitForFunction(() => Number(document.querySelector('[data-testid=live-saved]')?.textContent) >= 30, null, { timeout: 60_000 })
     await page.evaluate(() => (window as unknown as { __wingfoldContinuation: { terminate: () => void } }).__wingfoldContinuation.terminate())
-    // let a save that was already on the wire land, then compare the page's count with the server's
-    await page.waitForTimeout(1500)
+    // wait until a save that was already on the wire has landed and the page has counted it
+    await expect.poll(() => uploading, { timeout: 30_000 }).toBe(0)
+    await expect.poll(async () => Number(await page.textContent('[data-testid=live-saved]')) === (await editor.json('GET', `/api/runs/${runId}`)).body.pointCount, { timeout: 30_000 }).toBe(true)
     const saved = Number(await page.textContent('[data-testid=live-saved]'))
     const run = (await editor.json('GET', `/api/runs/${runId}`)).body
     expect(run.status).toBe('running')

@@ -2,10 +2,13 @@
  * FamilyRunner: batches and progress, pause / resume / cancel, a step that throws, a refused
  * start, and the settings schema (defaults, invalid input, paths that do not fit the pattern).
  */
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { FamilyRunner, type FamilyBatch } from '../../../shared/families'
 import { FamilySettingsSchema, parseFamilySettings } from '../../../shared/types/family'
 import { fermatPair, planeBridge, ring } from './fixtures'
+
+/** n turns of the event loop (zero-delay timers: no wall-clock wait). */
+const eventLoopTurns = async (n: number) => { for (let k = 0; k < n; k++) await new Promise(resolve => setTimeout(resolve, 0)) }
 
 const shear = { path: { kind: 'shear' as const }, to: 1.5, step: { max: 0.05 } }
 
@@ -44,12 +47,16 @@ describe('FamilyRunner', () => {
     const done = r.start((b) => {
       if (!paused && b.progress.points >= 4) { paused = true; r.pause() }
     }, { points: 1 })
-    await new Promise(resolve => setTimeout(resolve, 30))
+    // the runner yields one macrotask turn between batches: wait for the pause, then give it
+    // twenty turns, in which a running runner makes twenty batches of one point
+    await vi.waitUntil(() => r.result().status === 'paused')
     const whilePaused = r.result().branch.points.length
-    await new Promise(resolve => setTimeout(resolve, 30))
+    await eventLoopTurns(20)
     expect(r.result().branch.points.length).toBe(whilePaused)
     expect(r.result().status).toBe('paused')
     r.resume()
+    await eventLoopTurns(2)
+    expect(r.result().branch.points.length).toBeGreaterThan(whilePaused) // the same turns do move a running runner
     const res = await done
     expect(res.status).toBe('finished')
     expect(res.branch.points.map(p => p.lambda)).toEqual(ref.branch.points.map(p => p.lambda))
