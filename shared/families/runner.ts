@@ -81,7 +81,10 @@ export class FamilyRunner {
   constructor(doc: PatternDocument, settings: FamilySettingsInput | FamilySettings, from?: ContinuationStart) {
     this.settings = parseFamilySettings(settings)
     this.setup = setupFamily(doc, this.settings)
-    this.run = createContinuation(this.setup.problem, from ?? this.setup.start, this.setup.options, { id: `family-${this.settings.path.kind}` })
+    // a restart may begin at a special point where F_u is singular by nature (a branch point,
+    // followed along its kernel to the other branch; a fold): the given tangent leads off it
+    const options = from ? { ...this.setup.options, allowSingularStart: true } : this.setup.options
+    this.run = createContinuation(this.setup.problem, from ?? this.setup.start, options, { id: `family-${this.settings.path.kind}` })
     this.stepSize = this.run.options.initialStep
     if (!this.run.started) this.status = 'refused'
   }

@@ -103,6 +103,20 @@ describe('seeded runs', () => {
   })
 })
 
+describe('switching branch from the run page', () => {
+  it('creates the restart run at a special point (restartPointIndex −1 − k), as the run page asks', async () => {
+    const parent = runs.get('Even ring of four — lighter opposite edges')!
+    const k = special.get(parent.name)!.find(s => s.specialKind === 'branch point')!.index
+    const graphs = (await owner.json('GET', `/api/projects/${projectIds[0]}/graphs`)).body as Array<{ id: number, name: string }>
+    const res = await owner.json('POST', `/api/projects/${projectIds[0]}/runs`, {
+      graphId: graphs.find(g => g.name === parent.graphName)!.id, version: parent.graphVersion, name: `${parent.name} — switch branch at special point ${k}`,
+      settings: (await owner.json('GET', `/api/runs/${parent.id}`)).body.settings, parentRunId: parent.id, restartPointIndex: -1 - k,
+    })
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    expect(res.body).toMatchObject({ parentRunId: parent.id, restartPointIndex: -1 - k, status: 'running' })
+  })
+})
+
 describe('seeded maps', () => {
   it('re-verify through the server route and show collapses and branch points', async () => {
     const list = (await Promise.all(projectIds.map(async id => (await owner.json('GET', `/api/projects/${id}/maps`)).body as MapSummary[]))).flat()

@@ -6,6 +6,7 @@ import { describe, expect, it, vi } from 'vitest'
 import { FamilyRunner, type FamilyBatch } from '../../../shared/families'
 import { FamilySettingsSchema, parseFamilySettings } from '../../../shared/types/family'
 import { fermatPair, planeBridge, ring } from './fixtures'
+import { evenRingOfFour } from '../../../server/db/demo-patterns'
 
 /** n turns of the event loop (zero-delay timers: no wall-clock wait). */
 const eventLoopTurns = async (n: number) => { for (let k = 0; k < n; k++) await new Promise(resolve => setTimeout(resolve, 0)) }
@@ -60,6 +61,32 @@ describe('FamilyRunner', () => {
     const res = await done
     expect(res.status).toBe('finished')
     expect(res.branch.points.map(p => p.lambda)).toEqual(ref.branch.points.map(p => p.lambda))
+  })
+
+  it('restarts at a branch point along its kernel onto the other branch (the run page\'s "Switch branch")', () => {
+    // Even ring of four (server/db/demo-patterns.ts): weight s on e0, e2, α1 = 4π/3. Derived:
+    // K_i sin φ_i = c round the ring; the even states (φ0 = φ2) meet the uneven ones
+    // (φ0 = π − φ2, φ1 = φ3 = (α1 − π)/2 = π/6, s sin φ0 = sin(π/6)) at s = 1/2, where F_u is singular.
+    const doc = evenRingOfFour()
+    const settings = { path: { kind: 'weight-scale' as const, edges: ['e0', 'e2'] }, to: 0.2, stop: { maxPoints: 30 } }
+    const parent = new FamilyRunner(doc, settings)
+    while (!parent.done) parent.step({ points: 1000, ms: 60_000 })
+    const bp = parent.result().branch.specialPoints.find(p => p.kind === 'branch point')!
+    expect(bp.lambda).toBeCloseTo(1 / 2, 8)
+    const k = Array.from(bp.kernel!), norm = Math.hypot(...k)
+    const child = new FamilyRunner(doc, settings, { u: bp.u, lambda: bp.lambda, tangent: k.map(x => x / norm) })
+    while (!child.done) child.step({ points: 1000, ms: 60_000 })
+    const r = child.result()
+    expect(r.status).toBe('finished')
+    expect(r.branch.points.length).toBeGreaterThan(10)
+    const wrap = (x: number) => Math.atan2(Math.sin(x), Math.cos(x))
+    for (const p of r.branch.points.slice(1)) {
+      const [p1, p2, p3] = Array.from(p.u) as [number, number, number]
+      expect(Math.abs(wrap(p2 - p1 - Math.PI / 6))).toBeLessThan(1e-8)
+      expect(Math.abs(wrap(4 * Math.PI / 3 - p3 - Math.PI / 6))).toBeLessThan(1e-8)
+      expect(Math.abs(wrap(p1 + (p3 - p2) - Math.PI))).toBeLessThan(1e-8)
+      expect(Math.abs(p.lambda * Math.sin(p1) - 1 / 2)).toBeLessThan(1e-8)
+    }
   })
 
   it('returns every point computed so far when cancelled', async () => {
