@@ -14,7 +14,7 @@ const rows = [
   row(1, 'branch point', 0.5, 'branch point: two branches cross'),
   row(2, 'collapse', 2.1, 'collapse: edge e0'),
 ]
-const kinds = (w: Awaited<ReturnType<typeof mountSuspended>>) => w.findAll('tbody tr').map(tr => tr.attributes('data-kind'))
+const kinds = (w: Awaited<ReturnType<typeof mountSuspended>>) => w.findAll('tbody tr').map((tr: { attributes: (name: string) => string | undefined }) => tr.attributes('data-kind'))
 
 describe('SpecialPointsTable', () => {
   it('starts sorted by λ and sorts by kind on a header click, both ways', async () => {

@@ -155,7 +155,8 @@ describe('families in the browser', () => {
     let uploading = 0
     const isUpload = (r: { url: () => string, method: () => string }) => r.method() === 'POST' && /\/api\/runs\/\d+\/points$/.test(r.url())
     page.on('request', (r) => { if (isUpload(r)) uploading++ })
-    for (const ev of ['requestfinished', 'requestfailed'] as const) page.on(ev, (r) => { if (isUpload(r)) uploading-- })
+    page.on('requestfinished', (r) => { if (isUpload(r)) uploading-- })
+    page.on('requestfailed', (r) => { if (isUpload(r)) uploading-- })
     // tiny steps: thousands of points, so the run is still going when the worker is killed
     const runId = await startShear(page, torusId, fermatGraph, 'killed mid-way', { stepMax: '0.0002', maxPoints: '5000' })
     await page.waitForFunction(() => Number(document.querySelector('[data-testid=live-saved]')?.textContent) >= 30, null, { timeout: 60_000 })
