@@ -106,14 +106,23 @@ describe('room to read', () => {
     // the page is 1920 px wide: the plot takes the content width (120rem less the page padding), not a third of it
     expect(box.width).toBeGreaterThan(0.8 * 1920)
     expect(await frame.evaluate(el => getComputedStyle(el).resize)).toBe('vertical')
-    // pointer moved over the plot, between points and then far from any: the inspector shows a point every time
+    // before any pick the inspector shows the first point; the pointer over the plot, between points, picks the nearest
     await page.waitForSelector('[data-testid=branch-diagram] canvas')
-    for (const [fx, fy] of [[0.5, 0.5], [0.2, 0.8], [0.9, 0.15]]) {
-      await page.mouse.move(box.x + fx * box.width, box.y + fy * box.height)
-      await expect.poll(() => page.textContent('[data-testid=inspector-title]')).toMatch(/point \d+|collapse/)
-    }
+    expect(await page.textContent('[data-testid=inspector-title]')).toMatch(/point 0\b/)
+    const title = () => page.textContent('[data-testid=inspector-title]')
+    const index = async () => Number((await title())?.match(/point (\d+)/)?.[1] ?? Number.NaN)
+    // the middle of the plot: λ ≈ −0.6 of the run's 0 … −1.08, far from the first point (x runs from −1.2 to 0)
+    await page.mouse.move(box.x + 0.5 * box.width, box.y + 0.55 * box.height)
+    await expect.poll(index).toBeGreaterThan(2)
+    const middle = await index()
+    expect(middle).toBeLessThan(12)
+    // near the collapse end (top left): a later point or the collapse marker
+    await page.mouse.move(box.x + 0.12 * box.width, box.y + 0.2 * box.height)
+    await expect.poll(async () => (await title())!.includes('collapse') || (await index()) > middle).toBe(true)
+    const last = await title()
     await page.mouse.move(box.x + box.width / 2, box.y + box.height + 200) // off the plot: the last point stays
-    expect(await page.textContent('[data-testid=inspector-title]')).toMatch(/point \d+|collapse/)
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height + 220)
+    expect(await title()).toBe(last)
     await screenshot(page, 'room-run-inspector-1920')
     await page.click('[data-testid=branch-diagram] [data-testid=plot-full-screen]')
     const full = page.locator('[data-testid=branch-diagram] [data-testid=plot-frame][data-full=true]')
