@@ -1,4 +1,5 @@
 import type { ZodType } from 'zod'
+import { ref } from 'vue'
 
 /**
  * Client-side validation with the same zod schema the route uses.
