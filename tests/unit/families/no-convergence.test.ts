@@ -13,7 +13,7 @@ vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
 vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
 import { FamilyRunner } from '../../../shared/families'
-import { buildRunCsv, buildRunJson } from '../../../app/utils/family/export'
+import { buildRunCsv, buildRunJson } from '../../../shared/runs/export'
 import { fermatPair } from './fixtures'
 
 // Collapse tolerance 1e-10 of the mean length: the shear a of the Fermat pair (collapse at
