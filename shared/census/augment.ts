@@ -262,6 +262,15 @@ function shapeOf(sigma: Int32Array) {
  */
 export type ChildFilter = (sigma: Int32Array, vertices: number, genus: number) => boolean
 
+/**
+ * The subtree of the search below `m` (m first, then its descendants depth first): the search
+ * tree's nodes are independent, so subtrees can be searched apart (in threads) and their maps
+ * are still pairwise non-isomorphic.
+ */
+export function* growFrom(m: GeneratedMap, bounds: MapSearchBounds, prune?: (m: GeneratedMap) => boolean, admit?: ChildFilter): Generator<GeneratedMap> {
+  yield* grow(m, checkBounds(bounds), prune, admit)
+}
+
 function* grow(m: GeneratedMap, b: MapSearchBounds, prune?: (m: GeneratedMap) => boolean, admit?: ChildFilter): Generator<GeneratedMap> {
   yield m
   if (m.edges >= b.maxEdges || prune?.(m)) return
