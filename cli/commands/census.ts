@@ -25,7 +25,7 @@ function intOption(v: unknown, name: string): number {
 function line(r: CensusRow, index: Map<string, number>): string {
   const mirror = r.chiral ? `mirror of #${index.get(r.mirrorCode) ?? '?'}` : 'achiral'
   const verdict = r.balanced
-    ? `balanced at τ = ${r.tau[0].toFixed(3)} + ${r.tau[1].toFixed(3)}i, ${r.rigid ? 'rigid' : 'not rigid'}, phase kernel ${r.phaseKernelDimension}`
+    ? `balanced at τ = ${r.tau[0].toFixed(3)} + ${r.tau[1].toFixed(3)}i, ${r.rigid ? 'rigid' : 'not rigid'}, phase kernel at trivial phases ${r.phaseKernelDimension ?? 'unknown'} (0 by Chen–Traizet Prop. 6.12)`
     : `not balanced: ${r.reason}`
   return `#${index.get(r.code)}  towers ${r.towers}  edges ${r.edges}  degrees ${r.degrees.join(',')}  faces ${r.faceSizes.join(',')}  genus ${r.predictedGenus}  |Aut| ${r.automorphisms}  ${mirror}  ${verdict}`
 }
