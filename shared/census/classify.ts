@@ -30,7 +30,7 @@ export interface ClassifyOptions {
   sweepGrid?: number
   /**
    * When the lattice and the sample τ all fail: time budget (ms) per pattern for the coarse τ
-   * map sweep over the fundamental domain (default 2000; 0 turns it off). Only with `searchTau`.
+   * map sweep over the fundamental domain (default 500; 0 turns it off). Only with `searchTau`.
    */
   sweepSearchMs?: number
 }
@@ -142,7 +142,7 @@ export function classifyCensusMap(sigma: Int32Array, name: string, options: Clas
     if (a.report === null && a.reason?.includes('contractible')) break
   }
   let sweepNote = ''
-  const budget = options.sweepSearchMs ?? 2000
+  const budget = options.sweepSearchMs ?? 500
   if (!found && (options.searchTau ?? true) && budget > 0 && !(first?.report === null && first.reason?.includes('contractible'))) {
     const s = sweepSearch(sigma, name, Math.hypot(...lattice.w1), budget)
     if (s.found) { found = s.found; foundAt = s.lattice! } else sweepNote = `; the coarse τ sweep (${s.seeds} seeds, ${s.solved} solved cells in ${budget} ms) found no drawing that keeps the rotation`

@@ -105,6 +105,7 @@ export async function runCensus(o: CensusRunOptions): Promise<CensusRunResult> {
         progress.classified++
         progress.elapsedMs = Date.now() - t0
         await o.onRow?.(row, { ...progress })
+        await o.onProgress?.({ ...progress })
       },
       visited: (n) => {
         progress.visited += n

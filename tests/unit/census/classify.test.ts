@@ -82,6 +82,6 @@ describe('census classification', () => {
   it('reports the sweep search in the reason when nothing balances', () => {
     const failed = classified.filter(({ c }) => !c.balanced && !/contractible/.test(c.reason ?? ''))
     expect(failed.length).toBeGreaterThan(0)
-    for (const { c } of failed) expect(c.reason).toMatch(/coarse τ sweep \(\d+ seeds, \d+ solved cells in 2000 ms\)/)
+    for (const { c } of failed) expect(c.reason).toMatch(/coarse τ sweep \(\d+ seeds, \d+ solved cells in 500 ms\)/)
   })
 })
