@@ -173,7 +173,7 @@ function* augmentations(sigma: Int32Array, vertices: number, genus: number, face
   const faceOf = faces.of, faceSize = faces.size
   const budget = b.completionHalfEdges
   const left = budget === undefined ? 0 : budget - n - 2
-  let vertexOf = new Int32Array(0), degree = vertexOf, monoAt = vertexOf, need = 0
+  let vertexOf: Int32Array = new Int32Array(0), degree: Int32Array = vertexOf, monoAt: Int32Array = vertexOf, need = 0
   if (budget !== undefined) {
     ({ of: vertexOf, degree } = vertexData(sigma))
     monoAt = new Int32Array(vertices)
