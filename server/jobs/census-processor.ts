@@ -6,7 +6,9 @@
 import type { SandboxedJob } from 'bullmq'
 import { Redis } from 'ioredis'
 import { runCensus, type CensusRow } from '../../shared/census/run'
+import { availableParallelism } from 'node:os'
 import { censusCancelKey } from './census-keys'
+import { censusThreads } from './census-threads'
 import type { CensusQueueData } from './census-keys'
 
 export default async function processCensus(job: SandboxedJob<CensusQueueData>) {
@@ -19,7 +21,8 @@ export default async function processCensus(job: SandboxedJob<CensusQueueData>) 
   try {
     const r = await runCensus({
       bounds, classify, signal: controller.signal,
-      skip: code => skipSet.has(code),
+      skip: skipSet,
+      subtrees: censusThreads(Number(process.env.WINGFOLD_CENSUS_THREADS ?? availableParallelism())) ?? undefined,
       onRow: (row) => { batch.push(row) },
       onProgress: async (progress) => {
         if (await redis.get(censusCancelKey(jobId))) controller.abort()

@@ -9,6 +9,7 @@
 import type { H3Event } from 'h3'
 import { and, eq, inArray } from 'drizzle-orm'
 import { runCensus } from '#shared/census/run'
+import { censusThreads } from '../jobs/census-threads'
 import type { ClassifyOptions } from '#shared/census/classify'
 
 const running = new Map<number, AbortController>()
@@ -44,7 +45,8 @@ async function runInProcess(j: JobRow, controller: AbortController): Promise<voi
     const r = await runCensus({
       bounds: { maxTowers: j.maxTowers, maxHalfEdges: j.maxHalfEdges },
       classify: censusJobOptions(j),
-      skip: code => skip.has(code),
+      skip,
+      subtrees: censusThreads() ?? undefined,
       signal: controller.signal,
       onRow: row => storeCensusRow(j.id, row),
       onProgress: p => updateCensusJob(j.id, p),

@@ -24,6 +24,12 @@ export interface MapSearchBounds {
   maxVertices: number
   /** Genus at most (0 or 1 here; any non-negative integer works). */
   maxGenus: number
+  /**
+   * Optional completion budget (half-edges): keep only maps that can still grow into a map of
+   * genus exactly `maxGenus` with every vertex of even degree ≥ 4 and at most this many
+   * half-edges (see `augmentations`). Unset: every map within the bounds.
+   */
+  completionHalfEdges?: number
 }
 
 /** A generated map: σ on 2E darts (ι(d) = d ^ 1), its shape and canonical data. */
@@ -39,90 +45,179 @@ export interface GeneratedMap {
   automorphisms: number
 }
 
-/**
- * Kind of an edge for the invariant: 0 pendant, 1 loop, 2 other non-bridge; −1 when not
- * deletable. Bridges are only looked for when the map has neither pendant edges nor loops (they
- * would win anyway), which keeps the O(E²) test off most maps.
- */
-function edgeKinds(vertexOf: Int32Array, degree: number[], nVertices: number): Int32Array {
-  const E = vertexOf.length / 2
-  const kind = new Int32Array(E)
-  let easy = false
-  for (let e = 0; e < E; e++) {
-    const a = vertexOf[2 * e]!, b = vertexOf[2 * e + 1]!
-    kind[e] = a === b ? 1 : (degree[a] === 1 || degree[b] === 1) ? 0 : 2
-    if (kind[e]! < 2) easy = true
+/** Vertex of every dart and vertex degrees (σ orbits), in typed arrays. */
+function vertexData(sigma: Int32Array): { of: Int32Array, degree: Int32Array, count: number } {
+  const n = sigma.length
+  const of = new Int32Array(n).fill(-1)
+  const degree = new Int32Array(n + 1)
+  let count = 0
+  for (let d = 0; d < n; d++) {
+    if (of[d]! >= 0) continue
+    let x = d, size = 0
+    while (of[x]! < 0) { of[x] = count; size++; x = sigma[x]! }
+    degree[count++] = size
   }
-  if (!easy) for (let e = 0; e < E; e++) if (isBridge(e, vertexOf, nVertices)) kind[e] = -1
-  return kind
+  return { of, degree, count }
 }
 
-/** True when removing edge e disconnects the map's graph (BFS over vertices). */
-function isBridge(e: number, vertexOf: Int32Array, nVertices: number): boolean {
-  const E = vertexOf.length / 2
-  const adj: number[][] = Array.from({ length: nVertices }, () => [])
-  for (let f = 0; f < E; f++) {
-    if (f === e) continue
-    const a = vertexOf[2 * f]!, b = vertexOf[2 * f + 1]!
-    adj[a]!.push(b); adj[b]!.push(a)
+/** Face (φ = σ∘ι orbit) of every dart, and face sizes. */
+function faceData(sigma: Int32Array): { of: Int32Array, size: Int32Array } {
+  const n = sigma.length
+  const of = new Int32Array(n).fill(-1), size = new Int32Array(n)
+  let count = 0
+  for (let d = 0; d < n; d++) {
+    if (of[d]! >= 0) continue
+    let x = d
+    while (of[x]! < 0) { of[x] = count; size[count]!++; x = sigma[x ^ 1]! }
+    count++
   }
-  const seen = new Uint8Array(nVertices)
-  const start = vertexOf[2 * e]!, goal = vertexOf[2 * e + 1]!
-  const stack = [start]; seen[start] = 1
-  while (stack.length) {
-    const v = stack.pop()!
+  return { of, size }
+}
+
+/** True when removing edge e disconnects the map's graph (BFS over vertices, typed arrays). */
+function isBridge(e: number, vertexOf: Int32Array, nVertices: number): boolean {
+  const n = vertexOf.length
+  // adjacency by darts: the darts at each vertex, excluding edge e
+  const start = new Int32Array(nVertices + 1)
+  for (let d = 0; d < n; d++) if (d >> 1 !== e) start[vertexOf[d]! + 1]!++
+  for (let v = 0; v < nVertices; v++) start[v + 1]! += start[v]!
+  const fill = start.slice(0, nVertices), darts = new Int32Array(n)
+  for (let d = 0; d < n; d++) if (d >> 1 !== e) darts[fill[vertexOf[d]!]!++] = d
+  const seen = new Uint8Array(nVertices), stack = new Int32Array(nVertices)
+  const from = vertexOf[2 * e]!, goal = vertexOf[2 * e + 1]!
+  let top = 0
+  stack[top++] = from; seen[from] = 1
+  while (top) {
+    const v = stack[--top]!
     if (v === goal) return false
-    for (const w of adj[v]!) if (!seen[w]) { seen[w] = 1; stack.push(w) }
+    for (let k = start[v]!; k < start[v + 1]!; k++) {
+      const w = vertexOf[darts[k]! ^ 1]!
+      if (!seen[w]) { seen[w] = 1; stack[top++] = w }
+    }
   }
   return true
 }
 
-/** Invariant of a deletable edge (smaller wins): kind, then the sorted end degrees. */
-function edgeInvariant(e: number, kind: Int32Array, vertexOf: Int32Array, degree: number[]): number {
-  const a = degree[vertexOf[2 * e]!]!, b = degree[vertexOf[2 * e + 1]!]!
-  return kind[e]! * 1e6 + Math.min(a, b) * 1e3 + Math.max(a, b)
-}
-
 /**
- * Tests McKay's first condition for the child `sigma` whose last edge (darts n−2, n−1) was added:
- * the canonical code is taken over the roots on deletable edges of least invariant only (an
- * Aut-invariant set, see `canonicalize`), and the canonical deletable edge is the one holding the
- * root of that code. Returns the code (for merging siblings) and the optimal roots when accepted.
+ * Tests McKay's first condition for the child `sigma` whose last edge (darts n−2, n−1) was added.
+ * Invariant of a deletable edge (smaller wins): kind (0 pendant, 1 loop, 2 other non-bridge;
+ * bridges are not deletable), then the sorted end degrees. The canonical code is taken over the
+ * roots on deletable edges of least invariant only (an Aut-invariant set, see `canonicalize`), and
+ * the canonical deletable edge is the one holding the root of that code. Returns the code (for
+ * merging siblings) and the optimal roots when accepted.
+ * Early exits (same verdict, less work): the added edge is never a bridge (a chord joins a
+ * connected map; a pendant edge is deletable), so the child is rejected as soon as one deletable
+ * edge beats its invariant, and bridges are only tested on kind-2 edges whose degrees tie or beat
+ * the added edge's.
  */
 export function acceptChild(sigma: Int32Array): { code: Int32Array, roots: number[] } | null {
-  const n = sigma.length, E = n / 2
-  const shape = mapShape(sigma)
-  const vertexOf = shape.vertices.of
-  const degree = shape.vertices.sizes
-  const kind = edgeKinds(vertexOf, degree, shape.vertices.count)
+  const n = sigma.length, E = n / 2, added = E - 1
+  const { of: vertexOf, degree, count } = vertexData(sigma)
   const inv = new Float64Array(E)
-  let best = Infinity
+  let hard = false
   for (let e = 0; e < E; e++) {
-    inv[e] = kind[e]! < 0 ? Infinity : edgeInvariant(e, kind, vertexOf, degree)
-    if (inv[e]! < best) best = inv[e]!
+    const a = vertexOf[2 * e]!, b = vertexOf[2 * e + 1]!
+    const da = degree[a]!, db = degree[b]!
+    const kind = a === b ? 1 : (da === 1 || db === 1) ? 0 : 2
+    if (kind === 2) hard = true
+    inv[e] = kind * 1e6 + Math.min(da, db) * 1e3 + Math.max(da, db)
   }
-  const added = E - 1
-  if (inv[added] !== best) return null
+  const mine = inv[added]!
+  for (let e = 0; e < E; e++) if (inv[e]! < 2e6 && inv[e]! < mine) return null
+  if (hard) {
+    for (let e = 0; e < E; e++) {
+      if (e === added || inv[e]! < 2e6 || inv[e]! > mine) continue
+      if (isBridge(e, vertexOf, count)) inv[e] = Infinity
+      else if (inv[e]! < mine) return null
+    }
+  }
   const candidates: number[] = []
-  for (let e = 0; e < E; e++) if (inv[e] === best) candidates.push(2 * e, 2 * e + 1)
+  for (let e = 0; e < E; e++) if (inv[e] === mine) candidates.push(2 * e, 2 * e + 1)
   const canon = canonicalize(sigma, candidates)
   return canon.roots.some(r => r >> 1 === added) ? canon : null
 }
 
-/** Children of a map (all augmentations within the bounds), each as σ on n + 2 darts. */
-function* augmentations(sigma: Int32Array, vertices: number, genus: number, faceOf: Int32Array, b: MapSearchBounds): Generator<{ sigma: Int32Array, vertices: number, genus: number }> {
+/**
+ * Half-edges still to be added at a vertex of degree d with m faces of one half-edge at its
+ * corners: at least one dart per such corner, at least 4 − d, and the final degree even.
+ */
+function vertexNeed(d: number, m: number): number {
+  let k = Math.max(4 - d, m, 0)
+  if ((d + k) & 1) k++
+  return k
+}
+
+/**
+ * Children of a map (all augmentations within the bounds), each as σ on n + 2 darts.
+ * Genus never drops along the tree: a chord inside one face keeps χ (F + 1), a chord between two
+ * faces lowers it by 2 (F − 1), a pendant edge keeps it (V + 1); so a child above `maxGenus` is
+ * never built.
+ * With `b.completionHalfEdges` set, a child is only built when it can still become a map of genus
+ * `maxGenus`, every vertex of even degree ≥ 4 and every face of ≥ 2 half-edges within that many
+ * half-edges. Every descendant of the child contains it (edges are only added), so a lower bound
+ * on the half-edges any completion must add, above the half-edges left, proves the subtree empty.
+ * Two lower bounds:
+ * - per vertex v, `vertexNeed(d_v, m_v)`: a face of one half-edge {h} (σ(ιh) = h, a loop's inside)
+ *   stays one until a dart is put into its only corner, which lies at v; distinct such faces have
+ *   distinct corners; the degree must reach an even number ≥ 4. Summed over the vertices (new
+ *   vertices only add);
+ * - genus: 2 (maxGenus − g) (only a chord between two faces raises it, by one).
+ * The child's counts follow from the parent's in O(1), changing only at the ends of the new edge:
+ * a pendant edge at the corner after a grows the face of σ(a) by two; a chord a–c inside one face
+ * splits it into two faces of ≥ 2 half-edges when a ≠ c, and when a = c (a loop) into the old
+ * face plus one and a new face of one half-edge (the loop's inside, at a's vertex); a chord
+ * between two faces merges them into one of ≥ 4. The face of σ(a) has its corner at a's vertex.
+ */
+function* augmentations(sigma: Int32Array, vertices: number, genus: number, faces: { of: Int32Array, size: Int32Array }, b: MapSearchBounds): Generator<{ sigma: Int32Array, vertices: number, genus: number }> {
   const n = sigma.length, x = n, y = n + 1
+  const faceOf = faces.of, faceSize = faces.size
+  const budget = b.completionHalfEdges
+  const left = budget === undefined ? 0 : budget - n - 2
+  let vertexOf: Int32Array = new Int32Array(0), degree: Int32Array = vertexOf, monoAt: Int32Array = vertexOf, need = 0
+  if (budget !== undefined) {
+    ({ of: vertexOf, degree } = vertexData(sigma))
+    monoAt = new Int32Array(vertices)
+    for (let d = 0; d < n; d++) if (faceSize[faceOf[d]!] === 1) monoAt[vertexOf[d]!]!++
+    for (let v = 0; v < vertices; v++) need += vertexNeed(degree[v]!, monoAt[v]!)
+  }
+  const isMono = (f: number) => (faceSize[f] === 1 ? 1 : 0)
   if (vertices + 1 <= b.maxVertices) {
+    const genusNeed = 2 * (b.maxGenus - genus)
     for (let a = 0; a < n; a++) {
+      if (budget !== undefined) {
+        const v = vertexOf[a]!, d = degree[v]!, m = monoAt[v]!
+        const nc = need - vertexNeed(d, m) + vertexNeed(d + 1, m - isMono(faceOf[sigma[a]!]!)) + vertexNeed(1, 0)
+        if (nc > left || genusNeed > left) continue
+      }
       const s = new Int32Array(n + 2); s.set(sigma)
       s[a] = x; s[x] = sigma[a]!; s[y] = y
       yield { sigma: s, vertices: vertices + 1, genus }
     }
   }
   for (let a = 0; a < n; a++) {
+    const fa = faceOf[sigma[a]!]!
     for (let c = a; c < n; c++) {
-      const g = faceOf[sigma[a]!] === faceOf[sigma[c]!] ? genus : genus + 1
+      const fc = faceOf[sigma[c]!]!
+      const g = fa === fc ? genus : genus + 1
       if (g > b.maxGenus) continue
+      if (budget !== undefined) {
+        if (2 * (b.maxGenus - g) > left) continue
+        const va = vertexOf[a]!, vc = vertexOf[c]!
+        const da = degree[va]!, dc = degree[vc]!, ma = monoAt[va]!, mc = monoAt[vc]!
+        let nc: number
+        if (fa !== fc) {
+          nc = va === vc
+            ? need - vertexNeed(da, ma) + vertexNeed(da + 2, ma - isMono(fa) - isMono(fc))
+            : need - vertexNeed(da, ma) - vertexNeed(dc, mc) + vertexNeed(da + 1, ma - isMono(fa)) + vertexNeed(dc + 1, mc - isMono(fc))
+        } else if (a === c) {
+          nc = need - vertexNeed(da, ma) + vertexNeed(da + 2, ma - isMono(fa) + 1)
+        } else {
+          nc = va === vc
+            ? need - vertexNeed(da, ma) + vertexNeed(da + 2, ma)
+            : need - vertexNeed(da, ma) - vertexNeed(dc, mc) + vertexNeed(da + 1, ma) + vertexNeed(dc + 1, mc)
+        }
+        if (nc > left) continue
+      }
       const s = new Int32Array(n + 2); s.set(sigma)
       if (a === c) { s[a] = x; s[x] = y; s[y] = sigma[a]! } else {
         s[a] = x; s[x] = sigma[a]!; s[c] = y; s[y] = sigma[c]!
@@ -167,13 +262,22 @@ function shapeOf(sigma: Int32Array) {
  */
 export type ChildFilter = (sigma: Int32Array, vertices: number, genus: number) => boolean
 
+/**
+ * The subtree of the search below `m` (m first, then its descendants depth first): the search
+ * tree's nodes are independent, so subtrees can be searched apart (in threads) and their maps
+ * are still pairwise non-isomorphic.
+ */
+export function* growFrom(m: GeneratedMap, bounds: MapSearchBounds, prune?: (m: GeneratedMap) => boolean, admit?: ChildFilter): Generator<GeneratedMap> {
+  yield* grow(m, checkBounds(bounds), prune, admit)
+}
+
 function* grow(m: GeneratedMap, b: MapSearchBounds, prune?: (m: GeneratedMap) => boolean, admit?: ChildFilter): Generator<GeneratedMap> {
   yield m
   if (m.edges >= b.maxEdges || prune?.(m)) return
-  const faceOf = mapShape(m.sigma).faces.of
+  const faces = faceData(m.sigma)
   const seen = new Set<string>()
   const children: GeneratedMap[] = []
-  for (const child of augmentations(m.sigma, m.vertices, m.genus, faceOf, b)) {
+  for (const child of augmentations(m.sigma, m.vertices, m.genus, faces, b)) {
     if (admit && !admit(child.sigma, child.vertices, child.genus)) continue
     const acc = acceptChild(child.sigma)
     if (!acc) continue

@@ -6,8 +6,15 @@
  * first τ where a balanced drawing with the rotation kept is found wins. With `sweep`, the
  * moduli-map sweep (shared/maps) then continues that balanced drawing over a grid of the
  * fundamental domain's window and reports how many cells it reached and how many were rigid.
+ * When every sample fails, the same sweep searches: from seeds of a coarse grid of the
+ * fundamental domain (each seed solved from the harmonic drawing at that τ) it continues the
+ * solution over a coarse τ grid and takes the first solved cell whose drawing keeps the rotation
+ * and no edge collapses, within a time budget per pattern (`sweepSearchMs`).
+ * The phase kernel dimension is taken at trivial phases (all cos φ = 1), where it is 0 for every
+ * balanced pattern (H. Chen, M. Traizet, "Gluing Karcher–Scherk saddle towers I", 2021,
+ * Prop. 6.12: phase-rigid there); it checks the solve, it does not tell patterns apart.
  */
-import { runMapSweep } from '../maps'
+import { documentAtCell, runMapSweep } from '../maps'
 import { analyzePattern, balancePattern } from '../pattern'
 import { parsePatternDocument, type PatternDocument } from '../types/pattern'
 import { censusDocument, SQUARE_LATTICE, type CensusLattice } from './draw'
@@ -21,6 +28,11 @@ export interface ClassifyOptions {
   sweep?: boolean
   /** Grid of the sweep per axis (default 5). */
   sweepGrid?: number
+  /**
+   * When the lattice and the sample τ all fail: time budget (ms) per pattern for the coarse τ
+   * map sweep over the fundamental domain (default 500; 0 turns it off). Only with `searchTau`.
+   */
+  sweepSearchMs?: number
 }
 
 /** Sample shapes τ of the fundamental domain, square and hexagonal first. */
@@ -129,20 +141,35 @@ export function classifyCensusMap(sigma: Int32Array, name: string, options: Clas
     // a contractible loop has zero shift on every lattice: no other lattice can help
     if (a.report === null && a.reason?.includes('contractible')) break
   }
+  let sweepNote = ''
+  const budget = options.sweepSearchMs ?? 500
+  if (!found && (options.searchTau ?? true) && budget > 0 && !(first?.report === null && first.reason?.includes('contractible'))) {
+    const s = sweepSearch(sigma, name, Math.hypot(...lattice.w1), budget)
+    if (s.found) { found = s.found; foundAt = s.lattice! } else sweepNote = `; the coarse τ sweep (${s.seeds} seeds, ${s.solved} solved cells in ${budget} ms) found no drawing that keeps the rotation`
+  }
   const a = found ?? first!
   const v = found?.report?.verdicts
   return {
     balanced: v !== undefined,
-    reason: a.reason,
+    reason: found ? null : (a.reason ?? 'not balanced') + sweepNote,
     tau: tauOf(foundAt),
     rigid: v ? v.rigidity.ok : null,
-    // one length level: the symmetric spectrum counts the kernel; several levels: a phase-rigid
-    // pinned row Jacobian has kernel 0, otherwise the dimension is not counted (null)
-    phaseKernelDimension: v ? (v.phaseRigidity.inertia?.zero ?? (v.phaseRigidity.ok === true ? 0 : null)) : null,
+    phaseKernelDimension: v ? phaseKernel(v.phaseRigidity) : null,
     failing: a.report?.summary.failing ?? ['edgeLengths'],
     sweep: v && options.sweep && a.document.vertices.length > 1 ? sweepSummary(a.document, options.sweepGrid ?? 5) : null,
     document: a.document,
   }
+}
+
+/**
+ * Zero eigenvalues of the phase Jacobian (pinned): from the inertia when the report has it, else
+ * 0 when its least singular value clears the tolerance (an invertible matrix has no kernel), else
+ * unknown (null).
+ */
+function phaseKernel(pr: { inertia?: { zero: number } | null, sigmaMin?: number | null, tolerance?: number }): number | null {
+  if (pr.inertia) return pr.inertia.zero
+  if (typeof pr.sigmaMin === 'number' && typeof pr.tolerance === 'number' && pr.sigmaMin > pr.tolerance) return 0
+  return null
 }
 
 function sweepSummary(doc: PatternDocument, grid: number): CensusVerdicts['sweep'] {
@@ -154,4 +181,50 @@ function sweepSummary(doc: PatternDocument, grid: number): CensusVerdicts['sweep
   const cells = map.rows.flatMap(r => r.cells)
   const solved = cells.filter(c => c.status === 'solved')
   return { cells: cells.length, solved: solved.length, rigid: solved.filter(c => (c.sigmaMin ?? 0) > 1e-7).length }
+}
+
+/** Coarse τ grid of the fundamental domain |Re τ| ≤ 1/2, Im τ from √3/2 to 2 (3 × 3 cells). */
+const SEARCH_GRID = { x: { min: -0.5, max: 0.5, count: 3 }, y: { min: Math.sqrt(3) / 2, max: 2, count: 3 } }
+/** Seeds of the search sweep: the grid's points that are not sample τ. */
+const SEARCH_SEEDS: [number, number][] = [[0, 1.4], [-0.5, 2], [0.5, 2], [-0.5, Math.sqrt(3) / 2], [0.25, 1.7], [-0.25, 1.1], [0, 1.8]]
+
+/** Judges a drawing as `attempt` does (balanced, rotation kept, no collapsed edge). */
+function judge(doc: PatternDocument): Attempt {
+  if (zeroLengthEdges(doc).length) return { ok: false, reason: 'collapsed edge', document: doc, report: null }
+  const report = analyzePattern(doc)
+  const v = report.verdicts
+  const ok = v.balance.ok && v.cyclicOrder.ok && v.edgeLengths.ok
+  return { ok, reason: ok ? null : 'not balanced', document: doc, report }
+}
+
+/**
+ * The τ map sweep (shared/maps) as a search: at each seed τ the balance solve runs from the
+ * harmonic drawing (as for the samples); when it fails, the sweep starts from the solve's last
+ * drawing (nudged off coincident vertices) and continues the balanced state over the coarse grid; the first solved
+ * cell whose drawing passes `judge` wins. Stops at the budget (checked between seeds and cells).
+ * `directSolve = false` skips the balance solve at the seeds (the sweep's own seed solve only).
+ */
+export function sweepSearch(sigma: Int32Array, name: string, scale: number, budgetMs: number, directSolve = true): { found: Attempt | null, lattice: CensusLattice | null, seeds: number, solved: number } {
+  const t0 = Date.now()
+  let seeds = 0, solved = 0
+  for (const seed of SEARCH_SEEDS) {
+    if (Date.now() - t0 > budgetMs) break
+    const first = directSolve ? attempt(sigma, name, latticeOf(seed, scale)) : null
+    if (first?.ok) return { found: first, lattice: latticeOf(seed, scale), seeds: seeds + 1, solved }
+    let doc = first?.document ?? parsePatternDocument(censusDocument(sigma, name, latticeOf(seed, scale)))
+    if (zeroLengthEdges(doc).length) doc = separateCoincident(doc)
+    if (doc.vertices.length < 2) break
+    seeds++
+    const settings = { plane: 'tau' as const, scaleBy: 'w1' as const, seed, maxPointsPerRow: 200, ...SEARCH_GRID }
+    let map
+    try { map = runMapSweep(doc, settings) } catch { continue }
+    for (const cell of map.rows.flatMap(r => r.cells)) {
+      if (cell.status !== 'solved') continue
+      solved++
+      const j = judge(documentAtCell(doc, settings, cell))
+      if (j.ok) return { found: j, lattice: latticeOf([cell.x, cell.y], scale), seeds, solved }
+      if (Date.now() - t0 > budgetMs) break
+    }
+  }
+  return { found: null, lattice: null, seeds, solved }
 }

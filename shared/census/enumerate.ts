@@ -6,7 +6,7 @@
  * the filters apply to the leaves and every intermediate map (genus 0 or 1, any degrees) is only a
  * step. Mirror images (σ⁻¹, ι) have their own class when the pattern is chiral.
  */
-import { generateMaps, type GeneratedMap } from './augment'
+import { generateMaps, type GeneratedMap, type MapSearchBounds } from './augment'
 import { canonicalize, codeToString, isOrientableMap, mapShape, mirrorSigma } from './map-code'
 
 /** Census bounds: a count always refers to both (towers ≤ maxTowers and half-edges ≤ maxHalfEdges). */
@@ -83,11 +83,19 @@ export function halfEdgesNeeded(sigma: Int32Array, genus: number): number {
   return Math.max(need, genus === 0 ? 2 : 0)
 }
 
+/**
+ * The augmentation bounds of a census: genus ≤ 1 (adding an edge never lowers the genus, so a
+ * branch above genus 1 is cut at once), and the completion budget of `halfEdgesNeeded`, applied
+ * to each child before it is built.
+ */
+export function censusSearchBounds(b: CensusBounds): MapSearchBounds {
+  return { maxEdges: Math.floor(b.maxHalfEdges / 2), maxVertices: b.maxTowers, maxGenus: 1, completionHalfEdges: b.maxHalfEdges }
+}
+
 /** Every census pattern within the bounds, depth first; `onVisit` sees every map searched. */
 export function* enumerateCensus(bounds: CensusBounds, onVisit?: (m: GeneratedMap) => void): Generator<CensusPattern> {
   const b = checkCensusBounds(bounds)
-  const admit = (sigma: Int32Array, _v: number, genus: number) => halfEdgesNeeded(sigma, genus) <= b.maxHalfEdges - sigma.length
-  for (const m of generateMaps({ maxEdges: Math.floor(b.maxHalfEdges / 2), maxVertices: b.maxTowers, maxGenus: 1 }, undefined, admit)) {
+  for (const m of generateMaps(censusSearchBounds(b))) {
     onVisit?.(m)
     if (isCensusMap(m)) yield describeCensusMap(m)
   }

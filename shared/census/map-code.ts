@@ -54,6 +54,14 @@ function codeFromRoot(
   return state
 }
 
+/** Traversal scratch arrays, one pair per dart count (the search canonises millions of small maps). */
+const scratchBySize = new Map<number, { label: Int32Array, order: Int32Array }>()
+function buffers(n: number) {
+  let b = scratchBySize.get(n)
+  if (!b) { b = { label: new Int32Array(n), order: new Int32Array(n) }; scratchBySize.set(n, b) }
+  return b
+}
+
 /**
  * Canonical code and automorphism orbit of the roots of a connected map. With `candidates` (a set
  * of darts that every automorphism maps onto itself, e.g. chosen by an invariant), only those are
@@ -62,11 +70,12 @@ function codeFromRoot(
  */
 export function canonicalize(sigma: Int32Array, candidates?: readonly number[]): Canonical {
   const n = sigma.length
-  const label = new Int32Array(n), order = new Int32Array(n)
+  const { label, order } = buffers(n)
   let best = new Int32Array(2 * n), scratch = new Int32Array(2 * n)
   let roots: number[] = []
-  const tries = candidates ?? Array.from({ length: n }, (_, d) => d)
-  for (const r of tries) {
+  const count = candidates ? candidates.length : n
+  for (let k = 0; k < count; k++) {
+    const r = candidates ? candidates[k]! : k
     const c = codeFromRoot(sigma, r, roots.length ? best : null, scratch, label, order)
     if (c < 0) { [best, scratch] = [scratch, best]; roots = [r] } else if (c === 0) roots.push(r)
   }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { classifyCensusMap } from '../../../shared/census/classify'
+import { classifyCensusMap, sweepSearch } from '../../../shared/census/classify'
 import { censusDocument, drawTorusMap } from '../../../shared/census/draw'
 import { enumerateCensus } from '../../../shared/census/enumerate'
 import { mapShape } from '../../../shared/census/map-code'
@@ -64,5 +64,24 @@ describe('census classification', () => {
     const c = classifyCensusMap(Int32Array.from(meeks.sigma), 'two towers', { sweep: true, sweepGrid: 3 })
     // Meeks' example is balanced and rigid for every lattice: H. Chen, M. Traizet (2021), Ex. 7.1
     expect(c.sweep).toEqual({ cells: 9, solved: 9, rigid: 9 })
+  })
+
+  it('the τ sweep search finds a balanced drawing from the unsolved harmonic drawing (two towers, four edges)', () => {
+    const meeks = census.find(p => p.towers === 2 && p.edges === 4)!
+    const r = sweepSearch(Int32Array.from(meeks.sigma), 'two towers', 1, 60_000, false)
+    // balanced for every lattice: H. Chen, M. Traizet (2021), Ex. 7.1; checked here by analyzePattern
+    expect(r.found).not.toBeNull()
+    expect(r.solved).toBeGreaterThan(0)
+    const v = analyzePattern(r.found!.document).verdicts
+    expect(v.balance.ok && v.cyclicOrder.ok && v.edgeLengths.ok).toBe(true)
+    const [x, y] = [r.lattice!.w2[0], r.lattice!.w2[1]]
+    expect(Math.abs(x)).toBeLessThanOrEqual(0.5 + 1e-12)
+    expect(x * x + y * y).toBeGreaterThanOrEqual(1 - 1e-12)
+  })
+
+  it('reports the sweep search in the reason when nothing balances', () => {
+    const failed = classified.filter(({ c }) => !c.balanced && !/contractible/.test(c.reason ?? ''))
+    expect(failed.length).toBeGreaterThan(0)
+    for (const { c } of failed) expect(c.reason).toMatch(/coarse τ sweep \(\d+ seeds, \d+ solved cells in 500 ms\)/)
   })
 })

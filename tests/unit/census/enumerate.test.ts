@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { generateMaps } from '../../../shared/census/augment'
-import { enumerateCensus } from '../../../shared/census/enumerate'
+import { describeCensusMap, enumerateCensus, isCensusMap } from '../../../shared/census/enumerate'
 import { canonicalize, codeToString, isOrientableMap, mapShape, pairDarts, parseCode } from '../../../shared/census/map-code'
 
 /** Rooted maps with E edges by genus: Σ over unrooted classes of 2E/|Aut| (each class has 2E/|Aut| rootings). */
@@ -133,6 +133,26 @@ describe('census of torus gluing patterns', () => {
       const c = canonicalize(pairDarts(sigma, iota))
       expect(codeToString(c.code)).toBe(p.code)
       expect(c.roots.length).toBe(p.automorphisms)
+    }
+  })
+})
+
+describe('pruned census search', () => {
+  it('yields exactly the census maps of the unpruned search (towers ≤ 4 and half-edges ≤ 12, 2 and 14, 3 and 10)', () => {
+    // derived: the pruned search only drops subtrees with no census map, so both lists of codes agree
+    for (const bounds of [{ maxTowers: 4, maxHalfEdges: 12 }, { maxTowers: 2, maxHalfEdges: 14 }, { maxTowers: 3, maxHalfEdges: 10 }]) {
+      const unpruned = new Set<string>()
+      let unprunedVisited = 0
+      for (const m of generateMaps({ maxEdges: bounds.maxHalfEdges / 2, maxVertices: bounds.maxTowers, maxGenus: 1 })) {
+        unprunedVisited++
+        if (isCensusMap(m)) unpruned.add(describeCensusMap(m).code)
+      }
+      let visited = 0
+      const pruned = [...enumerateCensus(bounds, () => { visited++ })].map(p => p.code)
+      expect(new Set(pruned)).toEqual(unpruned)
+      expect(pruned).toHaveLength(unpruned.size)
+      expect(unpruned.size).toBeGreaterThan(0)
+      expect(visited).toBeLessThan(unprunedVisited / 4)
     }
   })
 })
