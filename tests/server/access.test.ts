@@ -4,6 +4,7 @@ import { useTestServer } from '../support/fixtures'
 import { client, signInAs, signUp, type ApiClient } from '../support/http'
 import { PATTERN_EXAMPLES, findPatternExample } from '../../shared/examples'
 import { analyzePattern } from '../../shared/pattern/analyze'
+import { demoGraphsFor } from '../../server/db/demo-graphs'
 
 const ctx = useTestServer()
 let owner: ApiClient, editor: ApiClient, viewer: ApiClient, stranger: ApiClient, admin: ApiClient
@@ -25,10 +26,10 @@ describe('seeing a project', () => {
       const list = (await c.json('GET', '/api/projects')).body as Array<{ id: number, role: string }>
       expect(list.find(p => p.id === projectId)?.role).toBe(role)
     }
-    // counts: three demo members (server/db/demo-data.ts) and one graph per torus example
+    // counts: three demo members (server/db/demo-data.ts) and the seeded torus patterns (server/db/demo-graphs.ts)
     const mine = ((await owner.json('GET', '/api/projects')).body as Array<{ id: number, memberCount: number, graphCount: number }>).find(p => p.id === projectId)!
     expect(mine.memberCount).toBe(3)
-    expect(mine.graphCount).toBe(PATTERN_EXAMPLES.filter(e => e.document.space === 'torus').length)
+    expect(mine.graphCount).toBe(demoGraphsFor(0).length)
   })
 
   it('answers 404 to a stranger, the same as for a project that does not exist', async () => {
@@ -108,8 +109,9 @@ describe('graphs of a project', () => {
   it('lists the seeded example patterns with their stored summaries, for members only', async () => {
     const graphs = await viewer.json('GET', `/api/projects/${projectId}/graphs`)
     expect(graphs.status).toBe(200)
-    const torusExamples = PATTERN_EXAMPLES.filter(e => e.document.space === 'torus')
-    expect(graphs.body).toHaveLength(torusExamples.length)
+    // every torus example plus the demo drafts (server/db/demo-graphs.ts)
+    expect(graphs.body).toHaveLength(demoGraphsFor(0).length)
+    expect(PATTERN_EXAMPLES.filter(e => e.document.space === 'torus').length).toBeLessThan(demoGraphsFor(0).length)
     const squarePair = (graphs.body as Array<{ name: string, version: number, summary: Record<string, unknown> }>)
       .find(g => g.name === findPatternExample('square-pair')!.title)!
     expect(squarePair.version).toBe(1)

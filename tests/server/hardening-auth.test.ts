@@ -144,11 +144,11 @@ describe('sessions', () => {
   it('ends a session past its idle or absolute lifetime', async () => {
     const e = demo('editor')
     const a = await signIn(ctx.server.url, e.email, e.password)
-    const [row] = await sqlOnServer(ctx.server, 'SELECT id FROM sessions ORDER BY created_at DESC LIMIT 1')
+    const [row] = await sqlOnServer(ctx.server, 'SELECT id FROM sessions ORDER BY id DESC LIMIT 1')
     await sqlOnServer(ctx.server, 'UPDATE sessions SET last_seen_at = ? WHERE id = ?', [Date.now() - 25 * 3_600_000, row!.id as string])
     expect((await a.json('GET', '/api/account')).status).toBe(401)
     const b = await signIn(ctx.server.url, e.email, e.password)
-    const [row2] = await sqlOnServer(ctx.server, 'SELECT id FROM sessions ORDER BY created_at DESC LIMIT 1')
+    const [row2] = await sqlOnServer(ctx.server, 'SELECT id FROM sessions ORDER BY id DESC LIMIT 1')
     await sqlOnServer(ctx.server, 'UPDATE sessions SET created_at = ? WHERE id = ?', [Date.now() - 8 * 86_400_000, row2!.id as string])
     expect((await b.json('GET', '/api/account')).status).toBe(401)
   })
