@@ -9,7 +9,8 @@
  */
 import { randomBytes } from 'node:crypto'
 import { and, eq, inArray, lte } from 'drizzle-orm'
-import { backoffMs, mailSettings } from './config'
+import { backoffMs } from './backoff'
+import { mailSettings } from './config'
 import { useMailTransport } from './transport'
 import type { RenderedMail } from './templates'
 

@@ -13,7 +13,7 @@
  * Newton step, no second derivatives from the problem. Each step solves
  * [[F_u, F_λ], [g_yᵀ]] δ = −(F, g).
  */
-import { BorderedSolver, type PointJacobian } from './bordered'
+import type { BorderedSolver, PointJacobian } from './bordered'
 import { jacobianAt } from './corrector'
 import type { ContinuationProblem } from './types'
 import { normInf, normalized } from './vectors'

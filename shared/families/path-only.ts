@@ -7,8 +7,7 @@
  * point on every milestone and stops at terminal events and at the target, with the same outputs
  * as the continuation engine.
  */
-import type { ResolvedOptions } from '../continuation/options'
-import { validateContinuationOptions, type ContinuationOptions } from '../continuation/options'
+import { validateContinuationOptions, type ContinuationOptions, type ResolvedOptions } from '../continuation/options'
 import { createContinuation, type Continuation } from '../continuation/engine'
 import type { BranchInfo, BranchResult, ContinuationPoint, ContinuationProblem, ContinuationStart, SpecialPoint, StepOutcome } from '../continuation/types'
 

@@ -8,9 +8,9 @@
  */
 import { CscPattern, symmetricAdjacency } from './csc'
 import { DenseFactor, tripletsToDense } from './dense'
-import { LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
+import { type LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
 import { SupernodalSymbolic, supernodalFactor } from './supernodal'
-import { LuFactor, luFactor } from './lu'
+import { type LuFactor, luFactor } from './lu'
 import { naturalOrdering, nestedDissection } from './ordering'
 import type { Triplets } from './triplets'
 
