@@ -1,5 +1,5 @@
 /**
- * `analyzePattern`: every verdict of issue 3 on a parsed document, as one JSON-serialisable
+ * `analyzePattern`: every verdict of the pattern checks on a parsed document, as one JSON-serialisable
  * `PatternReport`. The drawing is judged as it is (no solve); `balancePattern` and
  * `solvePhases` move it to a balanced state first when wanted.
  */

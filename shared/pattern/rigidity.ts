@@ -1,5 +1,5 @@
 /**
- * Rigidity of a drawing (domain.md §4). The trivial kernel of J = ∂B/∂p is removed by
+ * Rigidity of a drawing (docs/theory.md §4). The trivial kernel of J = ∂B/∂p is removed by
  * restricting J to the orthogonal complement of
  *   torus: the two translations;
  *   plane: the two translations and the dilation p ↦ p (B only sees directions).

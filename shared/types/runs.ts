@@ -1,5 +1,5 @@
 /**
- * Payloads of the run routes (issue 7): creating a run, appending batches of points, finishing,
+ * Payloads of the run routes: creating a run, appending batches of points, finishing,
  * renaming, listing with filters, importing an exported run and comparing runs. One schema per
  * payload, used by the routes and the forms.
  */

@@ -95,7 +95,7 @@ describe('families in the browser', () => {
     await expect.poll(() => page.textContent('[data-testid=inspector-title]')).toContain(`point ${middle}`)
     await page.waitForSelector('[data-testid=point-inspector] [data-testid=pattern-preview] svg')
     await screenshot(page, 'family-inspector')
-    // discussion of the collapse (issue 9's comments on special points, stored as −1 − k)
+    // discussion of the collapse (comments on special points, stored as −1 − k)
     await page.locator('[data-testid=special-points] button', { hasText: 'Comment' }).first().click()
     const thread = page.locator('[data-testid=special-point-comments] [data-testid=comment-thread]')
     await thread.locator('textarea').fill('Collapse lands on the **120°** corner, as expected.')

@@ -58,7 +58,7 @@ describe('saving and verifying a run', () => {
     expect(Math.max(...stored.points.map((p: { residual: number }) => p.residual))).toBeLessThan(1e-8)
     const sp = (await viewer.json('GET', `/api/runs/${runId}/special-points`)).body
     expect(sp.map((s: { specialKind: string }) => s.specialKind)).toContain('collapse')
-    // the author hears of the verdict by e-mail (issue 9: notices), through the outbox
+    // the author hears of the verdict by e-mail (the run-verdict notice), through the outbox
     const notice = await waitForMail(admin, m => m.kind === 'run-verdict' && m.toAddress.includes('editor@lanternbay.example'))
     expect(notice.subject).toMatch(/verified/i)
   })

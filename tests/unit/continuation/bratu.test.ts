@@ -17,8 +17,9 @@ function discreteFold(N: number): { lambda: number; located: boolean; precision:
 }
 
 describe('Bratu problem, 3-point finite differences', () => {
-  // Discrete fold values and the limit λ* = 3.51383071912516 as quoted in issue 4, which cites
-  // R. Buckmire and the Bratu/Gelfand literature (values taken from the issue, not re-derived).
+  // Discrete fold values and the limit λ* = 3.51383071912516 (λ* = 8x²/cosh²x with x tanh x = 1,
+  // docs/theory.md §8); the discrete values are from memory (R. Buckmire and the Bratu/Gelfand
+  // literature), not re-derived.
   const refs = [[10, 3.4986839], [100, 3.5136515], [1000, 3.5138289]] as const
   const found = new Map<number, number>()
   for (const [N, ref] of refs) {
@@ -35,7 +36,7 @@ describe('Bratu problem, 3-point finite differences', () => {
     const lim = analyticBratuFold()
     console.log(`Bratu analytic limit λ* = ${lim}, deviation from 3.51383071912516: ${(lim - 3.51383071912516).toExponential(2)}`)
     expect(Math.abs(lim - 3.51383071912516)).toBeLessThan(1e-13)
-    // λ_c(h) ≈ λ* − 1.828 h² (coefficient quoted in issue 4; from the issue text).
+    // λ_c(h) ≈ λ* − 1.828 h² (coefficient from memory, same literature).
     for (const N of [10, 100, 1000]) {
       const lam = found.get(N) ?? discreteFold(N).lambda
       const h = 1 / (N + 1)

@@ -11,7 +11,7 @@ import { ring } from './fixtures'
 
 describe('chord Newton', () => {
   it('Bratu N = 100: the same fold as full Newton, at the discrete reference 3.5136515', () => {
-    // discrete fold value for N = 100 as quoted in issue 4 (R. Buckmire and the Bratu/Gelfand literature)
+    // discrete fold value for N = 100, from memory (R. Buckmire and the Bratu/Gelfand literature)
     const ref = 3.5136515
     const opts = { maxStep: 2, initialStep: 0.1, stopAtSpecialPoint: true, maxPoints: 400 }
     const fold = (chordNewton: boolean) => {

@@ -20,7 +20,7 @@ function fermatDoc(w1: P, w2: P, start: P) {
 
 
 const cases: { label: string, w1: P, w2: P, L: number, point?: P }[] = [
-  // issue 3 §7 / domain.md §7 (classical Fermat–Torricelli; Kimberling X(13))
+  // docs/theory.md §8 (classical Fermat–Torricelli; C. Kimberling, Encyclopedia of Triangle Centers, X(13))
   { label: '3-4-5 triangle', w1: [4, 0], w2: [0, 3], L: Math.sqrt(25 + 12 * Math.sqrt(3)) },
   { label: 'ω1 = (1,1), ω2 = (0,1)', w1: [1, 1], w2: [0, 1], L: Math.sqrt(2 + Math.sqrt(3)), point: [0.2113248654, 0.7886751346] },
   { label: 'ω1 = (2,0), ω2 = (1,2)', w1: [2, 0], w2: [1, 2], L: 2 + Math.sqrt(3), point: [1, 0.5773502692] },
@@ -41,14 +41,14 @@ describe('Fermat–Torricelli through the torus pattern', () => {
       reportDeviation(`Fermat point vs X(13) trilinears, ${c.label}`, 'Kimberling ETC X(13)', dPoint)
       expect(Math.abs(L - c.L)).toBeLessThan(1e-12)
       expect(dPoint).toBeLessThan(1e-10)
-      // L² = (a² + b² + c²)/2 + 2√3·Area (classical, domain.md §7)
+      // L² = (a² + b² + c²)/2 + 2√3·Area (classical, docs/theory.md §8)
       const [a2, b2, c2] = [c.w1[0] ** 2 + c.w1[1] ** 2, c.w2[0] ** 2 + c.w2[1] ** 2,
         (c.w1[0] - c.w2[0]) ** 2 + (c.w1[1] - c.w2[1]) ** 2]
       const area = Math.abs(c.w1[0] * c.w2[1] - c.w1[1] * c.w2[0]) / 2
       expect(Math.abs(L * L - ((a2 + b2 + c2) / 2 + 2 * Math.sqrt(3) * area))).toBeLessThan(1e-11)
       if (c.point) {
         const dGiven = Math.hypot(p[0] - c.point[0], p[1] - c.point[1])
-        reportDeviation(`Fermat point vs issue value, ${c.label}`, 'issue 3 §7 (10 digits)', dGiven)
+        reportDeviation(`Fermat point vs reference value, ${c.label}`, 'first isogonic centre X(13) (10 digits)', dGiven)
         expect(dGiven).toBeLessThan(1e-9)
       }
     })
