@@ -13,7 +13,8 @@
  * Then the research-scale section (bench/scale.ts): factorisation beside SuperLU, balance solve,
  * rigidity check at V = 1k, 10k (and 20k for the factorisation).
  * Run: npm run bench   (add `--quick` to skip the dense step at V = 2k and the V = 20k factorisation)
- * Ends with the surface (bench/surface.ts) and certificate (bench/certify.ts) sections.
+ * Ends with the surface (bench/surface.ts), certificate (bench/certify.ts) and census
+ * (bench/census.ts) sections.
  */
 import { performance } from 'node:perf_hooks'
 import { createContinuation } from '../shared/continuation/engine'
@@ -181,3 +182,6 @@ await import('./surface')
 
 // interval certificates by size (bench/certify.ts)
 await import('./certify')
+
+// census section (bench/census.ts): patterns per second and the count by N
+await import('./census')

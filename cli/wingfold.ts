@@ -21,6 +21,7 @@ const COMMANDS: Record<string, () => Promise<CliCommand>> = {
   map: () => import('./commands/map'),
   surface: () => import('./commands/surface'),
   certify: () => import('./commands/certify'),
+  census: () => import('./commands/census'),
 }
 
 async function help(): Promise<string> {

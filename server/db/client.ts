@@ -19,11 +19,19 @@ export function databaseFilePath(url: string): string | null {
 /**
  * Open the database at `url`, creating the data folder for file URLs, and switch on WAL journaling
  * and foreign keys (libsql enables foreign keys by default; the pragma states the intent).
+ *
+ * Write several statements together with `db.batch([...])`, not `db.transaction(async tx => …)`:
+ * libsql runs SQLite synchronously on a pool of connections, so an interactive transaction that
+ * stays open across an await lets another request's write wait for the lock inside the event
+ * loop, the transaction can never finish, and both fail with SQLITE_BUSY after the busy timeout
+ * (seen as 500s under concurrent saves). A batch runs from BEGIN to COMMIT without yielding.
  */
 export async function openDatabase(url: string): Promise<{ db: Database, close: () => void }> {
   const file = databaseFilePath(url)
   if (file) mkdirSync(dirname(file), { recursive: true })
-  const client = createClient({ url: file ? `file:${file}` : url })
+  // `timeout`: the busy timeout of every pooled connection (the PRAGMA below reaches only the
+  // first one; without it concurrent writers on other connections fail with SQLITE_BUSY).
+  const client = createClient({ url: file ? `file:${file}` : url, timeout: 5000 })
   await client.execute('PRAGMA journal_mode = WAL')
   await client.execute('PRAGMA foreign_keys = ON')
   await client.execute('PRAGMA busy_timeout = 5000')

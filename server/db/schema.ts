@@ -11,6 +11,7 @@ import { index, integer, real, sqliteTable, text, uniqueIndex } from 'drizzle-or
 import {
   PROJECT_ROLES, SITE_ROLES, RUN_STATUSES, VERIFICATION_STATES, TOKEN_SCOPES,
 } from '../../shared/types/roles'
+import { CENSUS_JOB_STATUSES, CENSUS_QUEUES } from '../../shared/types/census'
 
 const createdAt = () => integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date())
 const updatedAt = () => integer('updated_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date()).$onUpdateFn(() => new Date())
@@ -224,6 +225,12 @@ export const mailMessages = sqliteTable('mail_messages', {
   kind: text('kind').notNull().default(''),
   /** Message-ID header we set, so the fake SMTP server can match what it received to this row. */
   messageId: text('message_id'),
+  /**
+   * What delivery needs and admins must not see: the rendered text and HTML with their working
+   * single-use link (JSON), kept only while the message waits for delivery and dropped once it is
+   * sent or has failed for good. `text_body` / `html_body` hold the redacted copy the outbox shows.
+   */
+  deliveryBody: text('delivery_body'),
   /** Delivery attempts so far; retried with exponential backoff until `next_attempt_at`. */
   attempts: integer('attempts').notNull().default(0),
   nextAttemptAt: integer('next_attempt_at', { mode: 'timestamp_ms' }),
@@ -256,9 +263,27 @@ export const signInFailures = sqliteTable('sign_in_failures', {
   id: integer('id').primaryKey({ autoIncrement: true }),
   email: text('email').notNull(),
   ip: text('ip').notNull(),
+  /** `sign-in` (a failed sign-in) or `reset` (a password-reset request, limited separately). */
+  kind: text('kind').notNull().default('sign-in'),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 }, t => [index('sign_in_failures_email_idx').on(t.email, t.createdAt), index('sign_in_failures_ip_idx').on(t.ip, t.createdAt)])
+
+/**
+ * Signed-in sessions: the sealed cookie carries a random session key, only its SHA-256 is stored
+ * here. A request whose key has no row (signed out, ended by a password change or reset, or
+ * past its idle or absolute lifetime) is treated as signed out.
+ */
+export const sessions = sqliteTable('sessions', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  userId: integer('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+  keyHash: text('key_hash').notNull(),
+  userAgent: text('user_agent').notNull().default(''),
+  ip: text('ip').notNull().default(''),
+  lastSeenAt: integer('last_seen_at', { mode: 'timestamp_ms' }).notNull().$defaultFn(() => new Date()),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [uniqueIndex('sessions_key_hash_unique').on(t.keyHash), index('sessions_user_idx').on(t.userId)])
 
 /**
  * A saved moduli map: its settings, the whole result (cells with their states, rows, crossings,
@@ -289,3 +314,55 @@ export const maps = sqliteTable('maps', {
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 }, t => [index('maps_project_idx').on(t.projectId)])
+
+/**
+ * A census job: enumerate and classify every torus gluing pattern within the bounds
+ * (shared/census). Progress counters are written as it runs; `options` holds the lattice and the
+ * τ search switch as JSON.
+ */
+export const censusJobs = sqliteTable('census_jobs', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  status: text('status', { enum: CENSUS_JOB_STATUSES }).notNull().default('queued'),
+  queue: text('queue', { enum: CENSUS_QUEUES }).notNull(),
+  maxTowers: integer('max_towers').notNull(),
+  maxHalfEdges: integer('max_half_edges').notNull(),
+  options: text('options').notNull().default('{}'),
+  visited: integer('visited').notNull().default(0),
+  found: integer('found').notNull().default(0),
+  classified: integer('classified').notNull().default(0),
+  error: text('error'),
+  createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+  finishedAt: integer('finished_at', { mode: 'timestamp_ms' }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+})
+
+/** One census pattern class (unique canonical code) with its verdicts and its drawing. */
+export const censusPatterns = sqliteTable('census_patterns', {
+  id: integer('id').primaryKey({ autoIncrement: true }),
+  code: text('code').notNull(),
+  mirrorCode: text('mirror_code').notNull(),
+  chiral: integer('chiral', { mode: 'boolean' }).notNull(),
+  towers: integer('towers').notNull(),
+  edges: integer('edges').notNull(),
+  halfEdges: integer('half_edges').notNull(),
+  faces: integer('faces').notNull(),
+  /** Degrees descending, comma-separated ("6,4,4"): filterable as text. */
+  degrees: text('degrees').notNull(),
+  faceSizes: text('face_sizes').notNull(),
+  predictedGenus: integer('predicted_genus').notNull(),
+  automorphisms: integer('automorphisms').notNull(),
+  balanced: integer('balanced', { mode: 'boolean' }).notNull(),
+  reason: text('reason'),
+  rigid: integer('rigid', { mode: 'boolean' }),
+  phaseKernelDimension: integer('phase_kernel_dimension'),
+  tau: text('tau').notNull(),
+  failing: text('failing').notNull(),
+  document: text('document').notNull(),
+  jobId: integer('job_id').references(() => censusJobs.id, { onDelete: 'set null' }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+}, t => [
+  uniqueIndex('census_patterns_code_unique').on(t.code),
+  index('census_patterns_towers_idx').on(t.towers, t.predictedGenus),
+])

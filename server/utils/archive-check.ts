@@ -9,6 +9,7 @@
  * rejected.
  */
 import { createHash } from 'node:crypto'
+import { formatNumber } from '#shared/format'
 import { ARCHIVE_FORMAT_VERSION, archiveManifestSchema, archivePersonSchema, type ArchiveManifest, type ArchivePerson } from '#shared/types/archive'
 import { parseFamilySettings } from '#shared/types/family'
 import { parseMapSettings, type MapResult } from '#shared/types/maps'
@@ -144,7 +145,7 @@ export function verifyArchive(a: ParsedArchive): ArchiveVerdicts {
       if (!rows.length) { verdicts.runs.set(run.id as number, { verification: run.verification as 'pending', reason: (run.verification_reason ?? null) as string | null }); continue }
       const settings = parseFamilySettings(JSON.parse(String(run.settings)))
       const picks = new Set(verificationSample(regularRows.length))
-      const toCheck = (r: ArchiveRow) => ({ index: (r.index as number) < 0 ? -1 - (r.index as number) : r.index as number, lambda: r.lambda as number, u: (JSON.parse(String(r.state)) as { u: number[] }).u, id: r.id as number })
+      const toCheck = (r: ArchiveRow) => ({ index: (r.index as number) < 0 ? -1 - (r.index as number) : r.index as number, lambda: r.lambda as number, u: (JSON.parse(String(r.state)) as { u: number[] }).u, id: r.id as number, ...(r.special_kind ? { kind: String(r.special_kind) } : {}) })
       const regular = regularRows.filter(r => picks.has(r.index as number)).map(toCheck)
       const special = rows.filter(r => (r.index as number) < 0).map(toCheck)
       const check = checkPoints(source.doc, settings, regular, special)
@@ -154,7 +155,7 @@ export function verifyArchive(a: ParsedArchive): ArchiveVerdicts {
       else if (!check.ok) problems.push(`${label}: ${rejectionReason(check)}`)
       else {
         const sampled = regularRows.length > FULL_CHECK_MAX_POINTS ? ` (sample of ${regular.length} of ${regularRows.length} points plus every special point)` : ''
-        verdicts.runs.set(run.id as number, { verification: 'verified', reason: `Re-verified on import: every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${check.maxResidual.toExponential(2)})${sampled}.` })
+        verdicts.runs.set(run.id as number, { verification: 'verified', reason: `Re-verified on import: every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${formatNumber(check.maxResidual)})${sampled}.` })
       }
     } catch (e) { problems.push(`${label}: cannot be read (${(e as Error).message})`) }
   }

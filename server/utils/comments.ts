@@ -4,12 +4,13 @@ import { and, eq } from 'drizzle-orm'
 import type { ProjectRole } from '#shared/types/roles'
 import type { CommentItem } from '#shared/types/team'
 
-/** The run (404 when missing or in a project the caller cannot see) and the caller's project role. */
+/**
+ * The run and the caller's project role: 401 first for anonymous callers, then the same 404 for a
+ * missing run and a run in a project the caller cannot see (requireRunAccess).
+ */
 export async function requireRunForComments(event: H3Event, runId: number, minRole: ProjectRole) {
-  const run = await useDb().query.runs.findFirst({ where: eq(tables.runs.id, runId), columns: { id: true, projectId: true, name: true, authorId: true } })
-  if (!run) throw httpError(404, 'run_not_found', 'No such run.')
-  const access = await requireProjectRole(event, run.projectId, minRole)
-  return { run, ...access }
+  const { run, ...access } = await requireRunAccess(event, runId, minRole)
+  return { run: { id: run.id, projectId: run.projectId, name: run.name, authorId: run.authorId }, ...access }
 }
 
 /** A comment of this run, or a 404. */

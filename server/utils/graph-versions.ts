@@ -3,7 +3,7 @@
  * summary and the activity entry, shared by the create, save and restore routes.
  */
 import type { H3Event } from 'h3'
-import { and, desc, eq } from 'drizzle-orm'
+import { and, desc, eq, sql } from 'drizzle-orm'
 import { safeParsePatternDocument, type PatternDocument } from '#shared/types/pattern'
 import { MAX_PATTERN_BYTES, type GraphDetail, type GraphVersionItem } from '#shared/types/graphs'
 import { analyzePattern } from '#shared/pattern/analyze'
@@ -42,14 +42,17 @@ export async function appendVersion(args: {
   const db = useDb()
   const g = await db.query.graphs.findFirst({ where: and(eq(tables.graphs.id, args.graphId), eq(tables.graphs.projectId, args.projectId)) })
   if (!g) throw httpError(404, 'graph_not_found', 'No such pattern in this project.')
-  const version = g.latestVersion + 1
-  await db.batch([
+  // The number is taken inside the batch (which runs without yielding): two saves at once get
+  // n + 1 and n + 2 instead of both reading n and one failing on the unique version.
+  const next = sql<number>`(SELECT latest_version + 1 FROM graphs WHERE id = ${g.id})` as unknown as number
+  const [, [row]] = await db.batch([
     db.insert(tables.graphVersions).values({
-      graphId: g.id, version, document: JSON.stringify(args.document), message: args.message,
+      graphId: g.id, version: next, document: JSON.stringify(args.document), message: args.message,
       analysisSummary: summaryOf(args.document), authorId: args.authorId,
     }),
-    db.update(tables.graphs).set({ latestVersion: version, updatedAt: new Date() }).where(eq(tables.graphs.id, g.id)),
+    db.update(tables.graphs).set({ latestVersion: sql`latest_version + 1`, updatedAt: new Date() }).where(eq(tables.graphs.id, g.id)).returning({ version: tables.graphs.latestVersion }),
   ])
+  const version = row!.version
   await logActivity({ projectId: args.projectId, actorId: args.authorId, verb: args.verb, objectType: 'graph', objectId: g.id, data: { name: g.name, version } })
   return version
 }

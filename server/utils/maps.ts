@@ -2,7 +2,8 @@
  * Saved maps on the server: access through the map's project, summaries, and the check of a
  * posted map. The server re-derives the grid from the settings, then recomputes max|F| with the
  * same core (shared/maps/verify.ts) at a seeded sample of solved cells; a map with any offending
- * cell, or a grid that does not match its settings, is stored as "rejected" with the reason.
+ * cell, or a grid that does not match its settings, is stored as "rejected" with the reason; a
+ * map without any solved cell stays "pending" (nothing could be verified).
  */
 import { formatNumber } from '#shared/format'
 import type { H3Event } from 'h3'
@@ -33,7 +34,7 @@ export async function requireMapAccess(event: H3Event, mapId: number, minRole: P
 }
 
 /** Verification verdict of a posted map against its document and settings. */
-export function checkPostedMap(doc: PatternDocument, settings: MapSettings, result: MapResult): { verification: 'verified' | 'rejected'; reason: string } {
+export function checkPostedMap(doc: PatternDocument, settings: MapSettings, result: MapResult): { verification: 'verified' | 'rejected' | 'pending'; reason: string } {
   const xs = axisValues(settings.x), ys = axisValues(settings.y)
   const close = (a: number[], b: number[]) => a.length === b.length && a.every((v, k) => Math.abs(v - b[k]!) <= 1e-12 * (1 + Math.abs(v)))
   if (!close(xs, result.xs) || !close(ys, result.ys)) return { verification: 'rejected', reason: 'the grid does not match the settings' }
@@ -41,6 +42,8 @@ export function checkPostedMap(doc: PatternDocument, settings: MapSettings, resu
   const bad = cells.find(c => c.x !== result.xs[c.j] || c.y !== result.ys[c.i])
   if (bad) return { verification: 'rejected', reason: `cell (${bad.i}, ${bad.j}) is not at its grid point` }
   const v = verifyMapCells(doc, settings, sampleCells(cells, MAP_VERIFY_SAMPLE), MAP_RESIDUAL_TOLERANCE)
+  // Nothing re-evaluated is nothing verified: such a map stays unverified ("pending"), saying why.
+  if (v.checked === 0) return { verification: 'pending', reason: 'not verified: the map has no solved cell, so there is nothing to re-evaluate' }
   if (!v.verified) return { verification: 'rejected', reason: `${v.offending.length} of ${v.checked} sampled cells fail: ${v.offending.slice(0, 3).map(o => `(${o.i}, ${o.j}) ${o.reason}`).join('; ')}` }
   return { verification: 'verified', reason: `${v.checked} sampled cells re-evaluated, max|F| = ${formatNumber(v.maxResidual)}` }
 }

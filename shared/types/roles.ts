@@ -13,8 +13,11 @@ export function roleAtLeast(role: ProjectRole, min: ProjectRole): boolean {
   return PROJECT_ROLES.indexOf(role) >= PROJECT_ROLES.indexOf(min)
 }
 
-/** 'stopped': the corrector kept failing, the family was not followed to its end. */
-export const RUN_STATUSES = ['running', 'complete', 'stopped', 'cancelled', 'failed'] as const
+/**
+ * 'stopped': the corrector kept failing, the family was not followed to its end. `interrupted`:
+ * nobody wrote to the run for `runIdleMinutes`; the server ended it (server/plugins/run-sweeper.ts).
+ */
+export const RUN_STATUSES = ['running', 'complete', 'stopped', 'cancelled', 'failed', 'interrupted'] as const
 export type RunStatus = typeof RUN_STATUSES[number]
 
 export const VERIFICATION_STATES = ['pending', 'verified', 'rejected'] as const

@@ -6,5 +6,10 @@ declare module '#auth-utils' {
     name: string
     siteRole: 'admin' | 'member'
   }
+  /** Server-only part of the session (never sent to the browser by /api/_auth/session). */
+  interface SecureSessionData {
+    /** Random key of this session; `sessions.key_hash` is its SHA-256 (server/utils/sessions.ts). */
+    sessionKey: string
+  }
 }
 export {}

@@ -137,7 +137,7 @@ describe('library, exports, import and compare', () => {
     expect(csv).toContain(RESULT_CAUTION)
     expect(csv).toContain('"path":{"kind":"shear"}')
     const header = csv.split('\n').find(l => l.startsWith('index,'))!
-    expect(header).toMatch(/lambda: shear s .*\[1\]/)
+    expect(header).toMatch(/lambda: shear s .*\[dimensionless\]/)
     const rows = csv.split('\n').filter(l => /^\d/.test(l))
     expect(rows).toHaveLength(batches.reduce((n, b) => n + b.points.length, 0))
     const json = await (await viewer.fetch(`/api/runs/${runId}/export.json`)).json()

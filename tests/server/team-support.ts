@@ -3,16 +3,22 @@
  * to reach the fake SMTP server, pull a link out of it, and edit the test server's SQLite file
  * directly (e.g. to age a token past its expiry).
  */
+import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { createClient } from '@libsql/client'
 import { expect } from 'vitest'
 import type { ApiClient } from '../support/http'
-import type { TestServer } from '../support/server'
+import { mailboxDirOf, type TestServer } from '../support/server'
 import type { OutboxMessage } from '../../shared/types/team'
 
 export type { OutboxMessage }
 
-/** Poll the outbox (as an admin) until `match` finds a message in one of `statuses`. */
+/**
+ * Poll the outbox (as an admin) until `match` finds a message in one of `statuses`. A delivered
+ * message comes back with the bodies its recipient received (the mailbox folder, with working
+ * links); the admin's own view is `admin.json('GET', '/api/admin/outbox/<id>')`, where
+ * single-use links are redacted.
+ */
 export async function waitForMail(admin: ApiClient, match: (m: OutboxMessage) => boolean, statuses = ['delivered'], timeoutMs = 20_000): Promise<OutboxMessage> {
   const deadline = Date.now() + timeoutMs
   let last: unknown
@@ -20,7 +26,12 @@ export async function waitForMail(admin: ApiClient, match: (m: OutboxMessage) =>
     const { body } = await admin.json('GET', '/api/admin/outbox?pageSize=100')
     last = body
     const hit = (body.items as OutboxMessage[]).find(m => match(m) && statuses.includes(m.status))
-    if (hit) return (await admin.json('GET', `/api/admin/outbox/${hit.id}`)).body
+    if (hit) {
+      const shown = (await admin.json('GET', `/api/admin/outbox/${hit.id}`)).body as OutboxMessage
+      if (hit.status !== 'delivered') return shown
+      const got = receivedCopy(mailboxDirOf(admin.baseUrl), hit.id)
+      if (got) return { ...shown, textBody: got.text, htmlBody: got.html }
+    }
     await new Promise(ok => setTimeout(ok, 200))
   }
   throw new Error(`no matching mail in ${statuses.join('/')}: ${JSON.stringify(last)}`)
@@ -51,4 +62,25 @@ export async function sqlOnServer(server: TestServer, sql: string, args: Array<s
   const db = createClient({ url: `file:${join(server.dataDir, 'wingfold.db')}` })
   try { return (await db.execute({ sql, args })).rows as unknown as Array<Record<string, unknown>> }
   finally { db.close() }
+}
+
+/** A message as the recipient received it (the fake SMTP server's mailbox folder). */
+export interface ReceivedMail { outboxId: number, to: string, subject: string, text: string, html: string, messageId: string }
+
+function mailboxFiles(dir: string): ReceivedMail[] {
+  if (!existsSync(dir)) return []
+  return readdirSync(dir).sort().map(f => JSON.parse(readFileSync(join(dir, f), 'utf8')) as ReceivedMail)
+}
+
+function receivedCopy(dir: string, outboxId: number): ReceivedMail | undefined {
+  return mailboxFiles(dir).find(m => m.outboxId === outboxId)
+}
+
+/**
+ * The messages to `address` in the test server's mailbox folder (`NUXT_MAILBOX_DIR`, set by
+ * tests/support/server.ts): what the recipient got, with its working links. The outbox that
+ * admins see never holds those links.
+ */
+export async function readMailbox(server: TestServer, address: string): Promise<ReceivedMail[]> {
+  return mailboxFiles(join(server.dataDir, 'mailbox')).filter(m => m.to.includes(address))
 }

@@ -22,7 +22,23 @@ export interface TestBrowser {
   context: BrowserContext
   /** A new page with a laptop-sized viewport (1366×860 unless given). */
   newPage: (viewport?: { width: number, height: number }) => Promise<Page>
+  /**
+   * Content-Security-Policy violations seen on any page of this context (console messages and
+   * `securitypolicyviolation` events); fixtures.ts fails the file when there is one.
+   */
+  cspViolations: () => string[]
   close: () => Promise<void>
+}
+
+/** Record CSP violations of `page` into `into`. */
+function watchCsp(page: Page, into: string[]): void {
+  page.on('console', (m) => { if (/Content Security Policy|Refused to (load|execute|create|apply|connect|frame)/i.test(m.text())) into.push(`${page.url()}: ${m.text()}`) })
+  void page.exposeBinding('__wingfoldCspViolation', (_src, text: string) => { into.push(`${page.url()}: ${text}`) }).catch(() => undefined)
+  void page.addInitScript(() => {
+    document.addEventListener('securitypolicyviolation', (e) => {
+      (window as unknown as { __wingfoldCspViolation?: (t: string) => void }).__wingfoldCspViolation?.(`${e.violatedDirective} blocked ${e.blockedURI || 'inline'}`)
+    })
+  }).catch(() => undefined)
 }
 
 /** Launch headless Chromium with a throwaway profile. */
@@ -34,8 +50,12 @@ export async function launchBrowser(): Promise<TestBrowser> {
     args: CHROMIUM_ARGS,
     viewport: { width: 1366, height: 860 },
   })
+  const violations: string[] = []
+  context.on('page', page => watchCsp(page, violations))
+  for (const page of context.pages()) watchCsp(page, violations)
   return {
     context,
+    cspViolations: () => [...violations],
     newPage: async (viewport) => {
       const page = await context.newPage()
       if (viewport) await page.setViewportSize(viewport)

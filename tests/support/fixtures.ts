@@ -18,6 +18,11 @@ export function useTestServer(opts?: StartServerOptions): { server: TestServer }
 export function useServerAndBrowser(opts?: StartServerOptions): { server: TestServer, browser: TestBrowser } {
   const ctx = {} as { server: TestServer, browser: TestBrowser }
   beforeAll(async () => { [ctx.server, ctx.browser] = await Promise.all([startServer(opts), launchBrowser()]) })
-  afterAll(async () => { await ctx.browser?.close(); await ctx.server?.stop() })
+  afterAll(async () => {
+    const violations = ctx.browser?.cspViolations() ?? []
+    await ctx.browser?.close(); await ctx.server?.stop()
+    // the security headers must not block anything the app does (workers, charts, fonts)
+    if (violations.length) throw new Error(`Content-Security-Policy violations in the browser:\n${violations.join('\n')}`)
+  })
   return ctx
 }

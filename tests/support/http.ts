@@ -15,6 +15,8 @@ export interface ApiClient {
   json: <T = any>(method: string, path: string, body?: unknown) => Promise<{ status: number, body: T }>
   /** The current `name=value` cookie header (empty when signed out). */
   cookie: () => string
+  /** The server this client talks to. */
+  baseUrl: string
 }
 
 /** A client without a session. */
@@ -44,7 +46,7 @@ export function client(baseUrl: string): ApiClient {
     const text = await res.text()
     return { status: res.status, body: text ? JSON.parse(text) : null }
   }
-  return { fetch: doFetch, json, cookie }
+  return { fetch: doFetch, json, cookie, baseUrl }
 }
 
 /** Sign in with e-mail and password; throws unless the server answers 200. */

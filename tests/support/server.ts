@@ -25,6 +25,8 @@ export interface TestServer {
   output: () => string
   /** Stop the process and delete the temporary folder. */
   stop: () => Promise<void>
+  /** SIGKILL the process (a crash) and keep the folder, to restart on the same file. */
+  kill: () => Promise<void>
 }
 
 /** Options of {@link startServer}. */
@@ -35,6 +37,17 @@ export interface StartServerOptions {
   timeoutMs?: number
   /** `build` (default): the production build; `dev`: `nuxt dev` with hot reload. */
   mode?: 'build' | 'dev'
+  /** Reuse this data folder (e.g. restart after `kill()`) instead of a new temporary one. */
+  dataDir?: string
+}
+
+const mailboxes = new Map<string, string>()
+
+/** The fake SMTP server's mailbox folder of the test server at `url` (what recipients received). */
+export function mailboxDirOf(url: string): string {
+  const dir = mailboxes.get(url)
+  if (!dir) throw new Error(`no test server at ${url}`)
+  return dir
 }
 
 /** Ask the OS for a free TCP port. */
@@ -54,7 +67,7 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
   const dev = opts.mode === 'dev'
   const entry = join(ROOT, process.env.WINGFOLD_OUTPUT_DIR || '.output', 'server/index.mjs')
   if (!dev && !existsSync(entry)) throw new Error('No build found: run `npx nuxt build` before the server and e2e tests (npm test does).')
-  const dataDir = mkdtempSync(join(tmpdir(), 'wingfold-test-'))
+  const dataDir = opts.dataDir ?? mkdtempSync(join(tmpdir(), 'wingfold-test-'))
   const port = await freePort()
   const url = `http://127.0.0.1:${port}`
   let log = ''
@@ -74,6 +87,8 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
       NUXT_MIGRATIONS_DIR: join(ROOT, 'server/migrations'),
       NUXT_SESSION_PASSWORD: randomBytes(32).toString('hex'),
       NUXT_PUBLIC_BASE_URL: url,
+      // the recipients' mailbox of the fake SMTP server (tests read single-use links from it)
+      NUXT_MAILBOX_DIR: join(dataDir, 'mailbox'),
       // nuxt dev clears its build and output folders: keep it away from the build under test
       // (inside the project root, where Vite may serve from; git-ignored `.nuxt-*` / `.output-*`)
       ...(dev ? { WINGFOLD_BUILD_DIR: devDirs.build, WINGFOLD_OUTPUT_DIR: devDirs.output } : {}),
@@ -95,12 +110,22 @@ export async function startServer(opts: StartServerOptions = {}): Promise<TestSe
     if (dev) for (const d of Object.values(devDirs)) rmSync(d, { recursive: true, force: true })
   }
 
+  const kill = async () => {
+    if (child.exitCode === null && child.signalCode === null) {
+      process.kill(-child.pid!, 'SIGKILL')
+      await exited
+    }
+  }
+
   const deadline = Date.now() + (opts.timeoutMs ?? (dev ? 180_000 : 60_000))
   while (Date.now() < deadline) {
     if (child.exitCode !== null) break
     try {
       const res = await fetch(`${url}/api/health`)
-      if (res.ok) return { url, dataDir, output: () => log, stop }
+      if (res.ok) {
+        mailboxes.set(url, join(dataDir, 'mailbox'))
+        return { url, dataDir, output: () => log, stop, kill }
+      }
     }
     catch { /* not listening yet */ }
     await new Promise(ok => setTimeout(ok, 200))

@@ -1,11 +1,11 @@
 import { eq } from 'drizzle-orm'
 import { signInSchema } from '#shared/types/auth'
 
-/** Sign in with e-mail and password; failures are rate-limited per account and per address. */
+/** Sign in with e-mail and password; failures are limited per account and slowed per address (rate-limit.ts). */
 export default defineEventHandler(async (event) => {
   const { email, password } = await readValidatedBody(event, signInSchema.parse)
   const ip = clientAddress(event)
-  await assertSignInAllowed(email, ip)
+  await throttleSignIn(event, email, ip)
   const user = await useDb().query.users.findFirst({ where: eq(tables.users.email, email) })
   if (!user || !(await verifyPassword(user.passwordHash, password))) {
     await recordSignInFailure(email, ip)
@@ -13,6 +13,6 @@ export default defineEventHandler(async (event) => {
   }
   await clearSignInFailures(email)
   const sessionUser = { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole }
-  await setUserSession(event, { user: sessionUser, loggedInAt: Date.now() })
+  await startSession(event, sessionUser)
   return { user: sessionUser }
 })

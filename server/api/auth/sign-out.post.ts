@@ -1,5 +1,5 @@
-/** End the session. */
+/** End this session: its row is deleted, so a replayed cookie no longer works. */
 export default defineEventHandler(async (event) => {
-  await clearUserSession(event)
+  await endCurrentSession(event)
   return { ok: true }
 })

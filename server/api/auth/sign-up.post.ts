@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   const [user] = await db.insert(tables.users)
     .values({ name, email, passwordHash: await hashPassword(password), siteRole: 'member' })
     .returning({ id: tables.users.id, email: tables.users.email, name: tables.users.name, siteRole: tables.users.siteRole })
-  await setUserSession(event, { user: user!, loggedInAt: Date.now() })
+  await startSession(event, user!)
   setResponseStatus(event, 201)
   return { user: user! }
 })

@@ -1,7 +1,7 @@
 import { and, eq, gt, isNull } from 'drizzle-orm'
 import { passwordResetSchema, tokenParamsSchema } from '#shared/types/team'
 
-/** Choose a new password with a reset link (single use; every other open link of the account dies too). */
+/** Choose a new password with a reset link (single use; every other open link and every session of the account end too). */
 export default defineEventHandler(async (event) => {
   const { token } = await getValidatedRouterParams(event, tokenParamsSchema.parse)
   const { password } = await readValidatedBody(event, passwordResetSchema.parse)
@@ -14,5 +14,6 @@ export default defineEventHandler(async (event) => {
   await db.update(r).set({ usedAt: now }).where(and(eq(r.userId, claimed.userId), isNull(r.usedAt)))
   const [user] = await db.update(tables.users).set({ passwordHash: await hashPassword(password) }).where(eq(tables.users.id, claimed.userId)).returning({ email: tables.users.email })
   if (user) await clearSignInFailures(user.email)
+  await endSessionsOf(claimed.userId)
   return { ok: true }
 })

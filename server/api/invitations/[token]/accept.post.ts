@@ -27,14 +27,14 @@ export default defineEventHandler(async (event) => {
   }
   await db.insert(tables.memberships).values({ projectId: invitation.projectId, userId: user!.id, role: invitation.role }).onConflictDoNothing()
   await logActivity({ projectId: invitation.projectId, actorId: user!.id, verb: 'joined', objectType: 'member', objectId: user!.id, data: { role: invitation.role, invitationId: invitation.id } })
-  if (!session.user) await setUserSession(event, { user: { id: user!.id, email: user!.email, name: user!.name, siteRole: user!.siteRole }, loggedInAt: Date.now() })
+  if (!session.user) await startSession(event, user!)
   return { projectId: invitation.projectId, role: invitation.role }
 })
 
 /** Verify the existing account's password, with the sign-in rate limits. */
 async function checkPassword(event: Parameters<typeof clientAddress>[0], email: string, password: string) {
   const ip = clientAddress(event)
-  await assertSignInAllowed(email, ip)
+  await throttleSignIn(event, email, ip)
   const u = await useDb().query.users.findFirst({ where: eq(tables.users.email, email), columns: { passwordHash: true } })
   if (!u || !(await verifyPassword(u.passwordHash, password))) {
     await recordSignInFailure(email, ip)

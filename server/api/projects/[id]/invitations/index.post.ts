@@ -19,7 +19,7 @@ export default defineEventHandler(async (event): Promise<InvitationItem> => {
   const expiresAt = new Date(Date.now() + linkLifetimes().invitationMs)
   const [row] = await db.insert(i).values({ projectId: id, email, role, tokenHash: hashToken(token), expiresAt, invitedBy: user.id }).returning()
   const url = `${mailSettings().baseUrl}/invitations/${token}`
-  await enqueueMail({ to: email, kind: 'invitation', ...invitationMail({ projectName: project.name, inviterName: user.name, role, url, expiresAt }) })
+  await enqueueMail({ to: email, kind: 'invitation', secretUrl: url, ...invitationMail({ projectName: project.name, inviterName: user.name, role, url, expiresAt }) })
   await logActivity({ projectId: id, actorId: user.id, verb: 'invited', objectType: 'invitation', objectId: row!.id, data: { email, role } })
   setResponseStatus(event, 201)
   return { id: row!.id, email, role, state: 'pending', invitedBy: user.name, expiresAt: expiresAt.toISOString(), createdAt: row!.createdAt.toISOString() }
