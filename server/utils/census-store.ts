@@ -3,8 +3,7 @@
  * meets the same class leaves the first row alone), job counters, and the views the API returns.
  */
 import { eq } from 'drizzle-orm'
-import type { CensusRow } from '#shared/census/run'
-import type { CensusProgress } from '#shared/census/run'
+import type { CensusProgress, CensusRow } from '#shared/census/run'
 import type { CensusJobView, CensusPatternView } from '#shared/types/census'
 
 type JobRow = typeof tables.censusJobs.$inferSelect
