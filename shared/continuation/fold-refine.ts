@@ -16,7 +16,7 @@
 import type { BorderedSolver, PointJacobian } from './bordered'
 import { jacobianAt } from './corrector'
 import type { ContinuationProblem } from './types'
-import { normInf, normalized } from './vectors'
+import { normInf, normalized } from '../linalg/vectors'
 
 /** Result of {@link refineFold}. */
 export interface FoldRefinement { converged: boolean; y: Float64Array; iterations: number; lastLambdaUpdate: number }

@@ -20,7 +20,7 @@
  */
 import type { Factorization } from '../linalg/solver'
 import type { RigidityMargin } from './types'
-import { norm2, probeVector } from './vectors'
+import { norm2, probeVector } from '../linalg/vectors'
 
 /** σ_min estimate and the corresponding approximate right singular vector (unit). */
 export function estimateSigmaMin(f: Factorization, symmetric: boolean, iterations: number, start?: Float64Array): { sigma: number; vector: Float64Array } {

@@ -37,13 +37,13 @@ export interface SolverOptions {
 }
 
 /** Defaults of {@link SolverOptions}. */
-export const SOLVER_DEFAULTS: Required<SolverOptions> = {
+export const DEFAULT_SOLVER_OPTIONS: Required<SolverOptions> = {
   method: 'auto', denseBelow: 0, ordering: 'nested-dissection', leafSize: 64, pivotTolerance: 0.1, ldlt: 'supernodal',
 }
 
 /** Fill defaults and reject nonsense. */
-export function validateSolverOptions(o: SolverOptions = {}): Required<SolverOptions> {
-  const r = { ...SOLVER_DEFAULTS, ...o }
+export function resolveSolverOptions(o: SolverOptions = {}): Required<SolverOptions> {
+  const r = { ...DEFAULT_SOLVER_OPTIONS, ...o }
   if (!['auto', 'ldlt', 'lu', 'dense'].includes(r.method)) throw new Error(`solver: unknown method '${r.method}'`)
   if (!['nested-dissection', 'natural'].includes(r.ordering)) throw new Error(`solver: unknown ordering '${r.ordering}'`)
   if (!(Number.isInteger(r.denseBelow) && r.denseBelow >= 0)) throw new Error('solver: denseBelow must be an integer ≥ 0')
@@ -67,7 +67,7 @@ export class SparseSolver {
   /** Number of times the pattern analysis (compression + ordering) was (re)done. */
   analyses = 0
 
-  constructor(options: SolverOptions = {}) { this.options = validateSolverOptions(options) }
+  constructor(options: SolverOptions = {}) { this.options = resolveSolverOptions(options) }
 
   /** Factorise the square matrix given by `t`; `symmetric` says A = Aᵀ (enables LDLᵀ and inertia). */
   factor(t: Triplets, symmetric: boolean): FactorOutcome {

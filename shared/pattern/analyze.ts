@@ -22,7 +22,7 @@ import { classifyVertices } from './vertex-towers'
 import { levelResidual, modelLevels, rowsDependingOnK } from './vertical-balance'
 import { wallReport } from './vertical-levels'
 import { cycleShifts, openFaces, sublatticeIndex } from './shifts'
-import { maxOf, minOf, norm2 } from './vector'
+import { maxOf, minOf, norm2 } from '../linalg/vectors'
 
 /** Tolerances and limits of the analysis; every one optional, defaults below. */
 export interface AnalyzeOptions {

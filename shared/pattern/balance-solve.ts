@@ -21,8 +21,8 @@ import type { Lattice, PatternModel } from './model'
 import { compilePattern } from './model'
 import { dampedNewton } from './newton'
 import { SparseBalanceStep } from './balance-step'
-import { tripletsToDense } from './spectrum'
-import { norm2 } from './vector'
+import { tripletsToDense } from '../linalg/dense'
+import { norm2 } from '../linalg/vectors'
 
 /** Options of the balance solve. */
 export interface BalanceOptions {

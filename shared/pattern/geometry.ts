@@ -4,7 +4,7 @@
  */
 import type { Lattice, PatternModel } from './model'
 import { halfEdgeDirection } from './model'
-import { minOf } from './vector'
+import { minOf } from '../linalg/vectors'
 
 /** Edge vectors of the closed edges (2E, interleaved), into `out` (allocated when absent). */
 export function edgeVectors(

@@ -10,7 +10,8 @@
 import type { Lattice, PatternModel } from './model'
 import { balanceJacobian } from './balance'
 import { meanEdgeLength } from './geometry'
-import { inertiaOf, reducedSpectrum, type Inertia } from './spectrum'
+import type { Inertia } from '../linalg/ldlt'
+import { inertiaOf, reducedSpectrum } from './spectrum'
 import { pinnedCoordinates, sparseRigidity } from './rigidity-sparse'
 
 /** [dx, dy] per vertex from an interleaved vector. */
