@@ -25,7 +25,7 @@ export function blankPattern(name = 'Untitled pattern', space: 'torus' | 'plane'
     format: PATTERN_FORMAT, version: PATTERN_VERSION, name, space,
     ...(space === 'torus' ? { lattice: { w1: [1, 0], w2: [0, 1] } as PatternLattice } : {}),
     vertices: [], edges: [], ...(space === 'plane' ? { wings: [] } : {}),
-  } as unknown as PatternDocument
+  }
 }
 
 const clone = <T>(x: T): T => JSON.parse(JSON.stringify(x)) as T

@@ -101,10 +101,13 @@ export const runListQuerySchema = z.object({
 })
 export type RunListQuery = z.input<typeof runListQuerySchema>
 
+/** Largest page of regular points one GET /api/runs/[runId]/points answers. */
+export const MAX_POINTS_PER_PAGE = 2000
+
 /** GET /api/runs/[runId]/points query: a page of regular points. */
 export const runPointsQuerySchema = z.object({
   offset: z.coerce.number().int().min(0).default(0),
-  limit: z.coerce.number().int().min(1).max(2000).default(500),
+  limit: z.coerce.number().int().min(1).max(MAX_POINTS_PER_PAGE).default(500),
 })
 
 /** GET /api/compare?runs=1,2,3 */
