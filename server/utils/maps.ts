@@ -1,37 +1,20 @@
 /**
- * Saved maps on the server: access through the map's project, summaries, and the check of a
+ * Saved maps on the server (access: requireMapAccess in access.ts): summaries, and the check of a
  * posted map. The server re-derives the grid from the settings, then recomputes max|F| with the
  * same core (shared/maps/verify.ts) at a seeded sample of solved cells; a map with any offending
  * cell, or a grid that does not match its settings, is stored as "rejected" with the reason; a
  * map without any solved cell stays "pending" (nothing could be verified).
  */
 import { formatNumber } from '#shared/format'
-import type { H3Event } from 'h3'
 import { desc, eq } from 'drizzle-orm'
 import { sampleCells, verifyMapCells } from '#shared/maps/verify'
 import { axisValues, type MapCurve, type MapDetail, type MapResult, type MapSettings, type MapSummary } from '#shared/types/maps'
 import type { PatternDocument } from '#shared/types/pattern'
-import type { ProjectRole } from '#shared/types/roles'
 
 /** Solved cells the server re-evaluates per map. */
 export const MAP_VERIFY_SAMPLE = 40
 /** Largest max|F| a stored cell may have (the grid value is met to the engine's locate tolerance). */
 export const MAP_RESIDUAL_TOLERANCE = 1e-7
-
-/** The map (404 when missing or its project is not readable) and the user's role. */
-export async function requireMapAccess(event: H3Event, mapId: number, minRole: ProjectRole) {
-  const map = await useDb().query.maps.findFirst({ where: eq(tables.maps.id, mapId) })
-  if (!map) {
-    await requireUser(event)
-    throw httpError(404, 'map_not_found', 'No such map.')
-  }
-  try {
-    return { ...(await requireProjectRole(event, map.projectId, minRole)), map }
-  } catch (e) {
-    if ((e as { statusCode?: number }).statusCode === 404) throw httpError(404, 'map_not_found', 'No such map.')
-    throw e
-  }
-}
 
 /** Verification verdict of a posted map against its document and settings. */
 export function checkPostedMap(doc: PatternDocument, settings: MapSettings, result: MapResult): { verification: 'verified' | 'rejected' | 'pending'; reason: string } {

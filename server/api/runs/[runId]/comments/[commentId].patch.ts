@@ -4,7 +4,7 @@ import { commentParamsSchema, commentUpdateSchema, type CommentItem } from '#sha
 /** Edit your own comment (marked "edited"). */
 export default defineEventHandler(async (event): Promise<CommentItem> => {
   const { runId, commentId } = await getValidatedRouterParams(event, commentParamsSchema.parse)
-  const { user, role } = await requireRunForComments(event, runId, 'viewer')
+  const { user, role } = await requireRunAccess(event, runId, 'viewer')
   const { body } = await readValidatedBody(event, commentUpdateSchema.parse)
   const comment = await findComment(runId, commentId)
   if (comment.authorId !== user.id) throw httpError(403, 'not_your_comment', 'You can only edit your own comments.')

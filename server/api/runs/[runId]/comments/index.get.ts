@@ -5,7 +5,7 @@ import { commentListQuerySchema, commentRunParamsSchema, type CommentItem } from
 export default defineEventHandler(async (event): Promise<CommentItem[]> => {
   const { runId } = await getValidatedRouterParams(event, commentRunParamsSchema.parse)
   const { pointIndex } = await getValidatedQuery(event, commentListQuerySchema.parse)
-  const { user, role } = await requireRunForComments(event, runId, 'viewer')
+  const { user, role } = await requireRunAccess(event, runId, 'viewer')
   const { comments: c, users: u } = tables
   const where: SQL[] = [eq(c.runId, runId)]
   if (pointIndex !== undefined) where.push(eq(c.pointIndex, pointIndex))

@@ -7,7 +7,7 @@ import { noticeComment } from '~~/server/mail/notices'
  */
 export default defineEventHandler(async (event): Promise<CommentItem> => {
   const { runId } = await getValidatedRouterParams(event, commentRunParamsSchema.parse)
-  const { user, role, run } = await requireRunForComments(event, runId, 'viewer')
+  const { user, role, run } = await requireRunAccess(event, runId, 'viewer')
   const { body, parentId, pointIndex } = await readValidatedBody(event, commentCreateSchema.parse)
   const parent = parentId ? await findComment(runId, parentId) : null
   if (parent?.parentId) throw httpError(400, 'reply_too_deep', 'Answer the first comment of the thread: threads have one level.')
