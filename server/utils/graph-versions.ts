@@ -35,6 +35,31 @@ function summaryOf(doc: PatternDocument): string | null {
   catch { return null }
 }
 
+/**
+ * Create a pattern in a project with its first version: the graph row, version 1 and the project's
+ * `updatedAt` in one batch (a failure leaves no graph without a version), then the activity entry.
+ */
+export async function createGraph(args: {
+  projectId: number, authorId: number, name: string, description: string, document: PatternDocument, message: string,
+}): Promise<{ id: number, version: number }> {
+  const db = useDb()
+  // last_insert_rowid(): the graph inserted just before, on the batch's one connection
+  const graphId = sql<number>`last_insert_rowid()` as unknown as number
+  const [[g]] = await db.batch([
+    db.insert(tables.graphs).values({
+      projectId: args.projectId, name: args.name, description: args.description, createdBy: args.authorId, latestVersion: 1,
+    }).returning({ id: tables.graphs.id }),
+    db.insert(tables.graphVersions).values({
+      graphId, version: 1, document: JSON.stringify(args.document), message: args.message,
+      analysisSummary: summaryOf(args.document), authorId: args.authorId,
+    }),
+    db.update(tables.projects).set({ updatedAt: new Date() }).where(eq(tables.projects.id, args.projectId)),
+  ])
+  const id = g!.id
+  await logActivity({ projectId: args.projectId, actorId: args.authorId, verb: 'created', objectType: 'graph', objectId: id, data: { name: args.name, version: 1 } })
+  return { id, version: 1 }
+}
+
 /** Append version `latest + 1` of graph `graphId` and log it; returns the new version number. */
 export async function appendVersion(args: {
   projectId: number, graphId: number, authorId: number, document: PatternDocument, message: string, verb: string,
