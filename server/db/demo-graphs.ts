@@ -19,5 +19,6 @@ export async function demoGraphsFor(projectIndex: number): Promise<DemoGraph[]> 
   const space = projectIndex === 0 ? 'torus' : 'plane'
   return PATTERN_EXAMPLES
     .filter(e => e.document.space === space)
-    .map(e => ({ name: e.title, description: e.description, document: e.document, summary: analyzePattern(e.document).summary }))
+    .map(e => ({ name: e.title, description: e.description, document: e.document,
+      summary: analyzePattern(e.document).summary }))
 }

@@ -34,8 +34,10 @@ export async function seedDemo(db: Database, opts: SeedOptions): Promise<SeedRes
     const ownerId = ids.get('owner')!
     let project = await db.query.projects.findFirst({ where: eq(projects.name, p.name) })
     if (!project) {
-      ;[project] = await db.insert(projects).values({ name: p.name, description: p.description, createdBy: ownerId }).returning()
-      await db.insert(activity).values({ projectId: project!.id, actorId: ownerId, verb: 'created', objectType: 'project', objectId: project!.id })
+      ;[project] = await db.insert(projects).values({ name: p.name, description: p.description,
+        createdBy: ownerId }).returning()
+      await db.insert(activity).values({ projectId: project!.id, actorId: ownerId, verb: 'created',
+        objectType: 'project', objectId: project!.id })
     }
     const projectId = project!.id
     for (const m of p.members) {
@@ -43,9 +45,11 @@ export async function seedDemo(db: Database, opts: SeedOptions): Promise<SeedRes
         .onConflictDoUpdate({ target: [memberships.projectId, memberships.userId], set: { role: m.role } })
     }
     for (const g of await demoGraphsFor(i)) {
-      const existing = await db.query.graphs.findFirst({ where: and(eq(graphs.projectId, projectId), eq(graphs.name, g.name)) })
+      const existing = await db.query.graphs.findFirst({ where: and(eq(graphs.projectId, projectId),
+        eq(graphs.name, g.name)) })
       if (existing) continue
-      const [graph] = await db.insert(graphs).values({ projectId, name: g.name, description: g.description, latestVersion: 1, createdBy: ownerId }).returning()
+      const [graph] = await db.insert(graphs).values({ projectId, name: g.name, description: g.description,
+        latestVersion: 1, createdBy: ownerId }).returning()
       await db.insert(graphVersions).values({
         graphId: graph!.id,
         version: 1,

@@ -1,7 +1,8 @@
 /**
  * Access decisions in one place. Pages and routes never repeat these checks.
- * Rules: signed-out (no session, no valid API token) → 401; a project the user is not a member of → 404 (its existence is not
- * revealed); a member below the required role → 403. Site admins do not bypass project roles.
+ * Rules: signed-out (no session, no valid API token) → 401; a project the user is not a member of
+ * → 404 (its existence is not revealed); a member below the required role → 403. Site admins do
+ * not bypass project roles.
  */
 import type { H3Event } from 'h3'
 import { and, eq } from 'drizzle-orm'
@@ -43,12 +44,14 @@ async function memberRole(userId: number, projectId: number, minRole: ProjectRol
   const row = await useDb()
     .select({ project: tables.projects, role: tables.memberships.role })
     .from(tables.projects)
-    .innerJoin(tables.memberships, and(eq(tables.memberships.projectId, tables.projects.id), eq(tables.memberships.userId, userId)))
+    .innerJoin(tables.memberships,
+      and(eq(tables.memberships.projectId, tables.projects.id), eq(tables.memberships.userId, userId)))
     .where(eq(tables.projects.id, projectId))
     .get()
   if (!row) throw httpError(404, ...notFound)
   if (!roleAtLeast(row.role, minRole)) {
-    throw httpError(403, 'role_too_low', `This needs the ${minRole} role in this project; you are ${row.role === 'editor' ? 'an' : 'a'} ${row.role}.`)
+    throw httpError(403, 'role_too_low',
+      `This needs the ${minRole} role in this project; you are ${row.role === 'editor' ? 'an' : 'a'} ${row.role}.`)
   }
   return { project: row.project, role: row.role }
 }

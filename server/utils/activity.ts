@@ -12,7 +12,8 @@ export interface ActivityEntry {
 
 /** The insert of an entry, to run in one `db.batch` with the write it records. */
 export function activityInsert(entry: ActivityEntry) {
-  return useDb().insert(tables.activity).values({ ...entry, objectId: entry.objectId ?? null, data: JSON.stringify(entry.data ?? {}) })
+  return useDb().insert(tables.activity).values({ ...entry, objectId: entry.objectId ?? null,
+    data: JSON.stringify(entry.data ?? {}) })
 }
 
 /** Append an entry to a project's activity log. */

@@ -27,7 +27,9 @@ export async function storedCensusCodes(): Promise<Set<string>> {
 }
 
 /** Writes a job's counters (and optionally its status). */
-export async function updateCensusJob(jobId: number, p: Partial<CensusProgress> & { status?: JobRow['status'], error?: string | null, finished?: boolean }): Promise<void> {
+export async function updateCensusJob(jobId: number,
+  p: Partial<CensusProgress> & { status?: JobRow['status'], error?: string | null,
+  finished?: boolean }): Promise<void> {
   await useDb().update(tables.censusJobs).set({
     ...(p.visited !== undefined ? { visited: p.visited } : {}),
     ...(p.found !== undefined ? { found: p.found } : {}),

@@ -12,10 +12,12 @@ export async function findComment(runId: number, commentId: number) {
 }
 
 /** Shape a comment row for a viewer with `role` and id `viewerId`. */
-export function toCommentItem(r: typeof tables.comments.$inferSelect, author: { id: number, name: string } | null, viewerId: number, role: ProjectRole): CommentItem {
+export function toCommentItem(r: typeof tables.comments.$inferSelect, author: { id: number, name: string } | null,
+  viewerId: number, role: ProjectRole): CommentItem {
   const own = r.authorId === viewerId
   return {
     id: r.id, parentId: r.parentId, pointIndex: r.pointIndex, author, body: r.body, html: renderCommentMarkdown(r.body),
-    edited: r.edited, canEdit: own, canDelete: own || roleAtLeast(role, 'owner'), createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
+    edited: r.edited, canEdit: own, canDelete: own || roleAtLeast(role,
+      'owner'), createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
   }
 }

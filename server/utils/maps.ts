@@ -8,7 +8,8 @@
 import { formatNumber } from '#shared/format'
 import { desc, eq } from 'drizzle-orm'
 import { sampleCells, verifyMapCells } from '#shared/maps/verify'
-import { axisValues, type MapCurve, type MapDetail, type MapResult, type MapSettings, type MapSummary } from '#shared/types/maps'
+import { axisValues, type MapCurve, type MapDetail, type MapResult, type MapSettings,
+  type MapSummary } from '#shared/types/maps'
 import type { PatternDocument } from '#shared/types/pattern'
 
 /** Solved cells the server re-evaluates per map. */
@@ -17,24 +18,31 @@ export const MAP_VERIFY_SAMPLE = 40
 export const MAP_RESIDUAL_TOLERANCE = 1e-7
 
 /** Verification verdict of a posted map against its document and settings. */
-export function checkPostedMap(doc: PatternDocument, settings: MapSettings, result: MapResult): { verification: 'verified' | 'rejected' | 'pending'; reason: string } {
+export function checkPostedMap(doc: PatternDocument, settings: MapSettings,
+  result: MapResult): { verification: 'verified' | 'rejected' | 'pending'; reason: string } {
   const xs = axisValues(settings.x), ys = axisValues(settings.y)
-  const close = (a: number[], b: number[]) => a.length === b.length && a.every((v, k) => Math.abs(v - b[k]!) <= 1e-12 * (1 + Math.abs(v)))
-  if (!close(xs, result.xs) || !close(ys, result.ys)) return { verification: 'rejected', reason: 'the grid does not match the settings' }
+  const close = (a: number[],
+    b: number[]) => a.length === b.length && a.every((v, k) => Math.abs(v - b[k]!) <= 1e-12 * (1 + Math.abs(v)))
+  if (!close(xs, result.xs) || !close(ys, result.ys)) return { verification: 'rejected',
+    reason: 'the grid does not match the settings' }
   const cells = result.rows.flatMap(r => r.cells)
   const bad = cells.find(c => c.x !== result.xs[c.j] || c.y !== result.ys[c.i])
   if (bad) return { verification: 'rejected', reason: `cell (${bad.i}, ${bad.j}) is not at its grid point` }
   const v = verifyMapCells(doc, settings, sampleCells(cells, MAP_VERIFY_SAMPLE), MAP_RESIDUAL_TOLERANCE)
   // Nothing re-evaluated is nothing verified: such a map stays unverified ("pending"), saying why.
-  if (v.checked === 0) return { verification: 'pending', reason: 'not verified: the map has no solved cell, so there is nothing to re-evaluate' }
-  if (!v.verified) return { verification: 'rejected', reason: `${v.offending.length} of ${v.checked} sampled cells fail: ${v.offending.slice(0, 3).map(o => `(${o.i}, ${o.j}) ${o.reason}`).join('; ')}` }
-  return { verification: 'verified', reason: `${v.checked} sampled cells re-evaluated, max|F| = ${formatNumber(v.maxResidual)}` }
+  if (v.checked === 0) return { verification: 'pending',
+    reason: 'not verified: the map has no solved cell, so there is nothing to re-evaluate' }
+  if (!v.verified) return { verification: 'rejected',
+    reason: `${v.offending.length} of ${v.checked} sampled cells fail: ${v.offending.slice(0, 3).map(o => `(${o.i}, ${o.j}) ${o.reason}`).join('; ')}` }
+  return { verification: 'verified',
+    reason: `${v.checked} sampled cells re-evaluated, max|F| = ${formatNumber(v.maxResidual)}` }
 }
 
 function summarySelect() {
   const { maps: m, graphs: g, graphVersions: v, users: u } = tables
   return useDb().select({ map: m, graphId: g.id, graphName: g.name, version: v.version, authorName: u.name })
-    .from(m).innerJoin(v, eq(v.id, m.graphVersionId)).innerJoin(g, eq(g.id, v.graphId)).leftJoin(u, eq(u.id, m.authorId))
+    .from(m).innerJoin(v, eq(v.id, m.graphVersionId)).innerJoin(g, eq(g.id, v.graphId)).leftJoin(u,
+      eq(u.id, m.authorId))
 }
 type SummaryRow = Awaited<ReturnType<typeof summarySelect>>[number]
 
@@ -49,16 +57,19 @@ function toSummary(r: SummaryRow): MapSummary {
 
 /** The project's maps, newest first. */
 export async function listMaps(projectId: number): Promise<MapSummary[]> {
-  return (await summarySelect().where(eq(tables.maps.projectId, projectId)).orderBy(desc(tables.maps.id))).map(toSummary)
+  return (await summarySelect().where(eq(tables.maps.projectId,
+    projectId)).orderBy(desc(tables.maps.id))).map(toSummary)
 }
 
 /** One map with its cells, curves and the pattern document it was computed from. */
 export async function loadMapDetail(mapId: number): Promise<MapDetail> {
   const [row] = await summarySelect().where(eq(tables.maps.id, mapId))
   if (!row) throw httpError(404, 'map_not_found', 'No such map.')
-  const version = await useDb().query.graphVersions.findFirst({ where: eq(tables.graphVersions.id, row.map.graphVersionId) })
+  const version = await useDb().query.graphVersions.findFirst({ where: eq(tables.graphVersions.id,
+    row.map.graphVersionId) })
   const stored = JSON.parse(row.map.result) as { result: MapResult; curves: MapCurve[] }
-  return { ...toSummary(row), settings: JSON.parse(row.map.settings) as MapSettings, result: stored.result, curves: stored.curves, document: JSON.parse(version!.document) as unknown }
+  return { ...toSummary(row), settings: JSON.parse(row.map.settings) as MapSettings, result: stored.result,
+    curves: stored.curves, document: JSON.parse(version!.document) as unknown }
 }
 
 /** A file name for exports. */

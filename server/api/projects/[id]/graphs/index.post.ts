@@ -8,7 +8,8 @@ export default defineEventHandler(async (event) => {
   assertBodySize(event)
   const body = await readValidatedBody(event, graphCreateSchema.parse)
   const document = checkedDocument(body.document)
-  const created = await createGraph({ projectId: id, authorId: user.id, name: body.name, description: body.description, document, message: body.message })
+  const created = await createGraph({ projectId: id, authorId: user.id, name: body.name, description: body.description,
+    document, message: body.message })
   setResponseStatus(event, 201)
   return created
 })

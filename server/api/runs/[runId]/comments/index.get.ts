@@ -11,5 +11,6 @@ export default defineEventHandler(async (event): Promise<CommentItem[]> => {
   if (pointIndex !== undefined) where.push(eq(c.pointIndex, pointIndex))
   const rows = await useDb().select({ c, authorName: u.name }).from(c).leftJoin(u, eq(u.id, c.authorId))
     .where(and(...where)).orderBy(asc(c.createdAt), asc(c.id))
-  return rows.map(r => toCommentItem(r.c, r.c.authorId && r.authorName ? { id: r.c.authorId, name: r.authorName } : null, user.id, role))
+  return rows.map(r => toCommentItem(r.c,
+    r.c.authorId && r.authorName ? { id: r.c.authorId, name: r.authorName } : null, user.id, role))
 })
