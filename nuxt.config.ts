@@ -96,5 +96,6 @@ export default defineNuxtConfig({
       include: ['comlink', 'echarts/core', 'echarts/charts', 'echarts/components', 'echarts/renderers', 'vue-echarts', 'mathjs', 'ml-matrix', 'zod'],
     },
   },
-  typescript: { strict: true },
+  // the component tests mount app components, so they are type-checked with the app's types
+  typescript: { strict: true, tsConfig: { include: ['../tests/component/**/*'] } },
 })

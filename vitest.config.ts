@@ -1,9 +1,30 @@
 import { defineConfig } from 'vitest/config'
+import { defineVitestProject } from '@nuxt/test-utils/config'
 
-// Three layers (see DEVELOPERS.md):
-// - unit:   pure shared/ core, node environment, no app needed
-// - server: real HTTP against the built server on a temporary SQLite file
-// - e2e:    real Chromium (playwright-core, /usr/bin/chromium) against the built server
+// Four layers (see DEVELOPERS.md):
+// - unit:      pure shared/ core, node environment, no app needed
+// - component: app components mounted in happy-dom (@nuxt/test-utils' nuxt environment, so
+//              auto-imports, aliases and Pinia work as in the app; @vue/test-utils underneath)
+// - server:    real HTTP against the built server on a temporary SQLite file
+// - e2e:       real Chromium (playwright-core, /usr/bin/chromium) against the built server
+//
+// Loading Nuxt for the component project costs seconds at every vitest start, so it is set up
+// only when that project can run (no --project filter, or --project component).
+const argv = process.argv.join(' ')
+const componentWanted = !/--project[= ]/.test(argv) || /--project[= ]component\b/.test(argv)
+const componentProject = componentWanted
+  ? [await defineVitestProject({
+      test: {
+        name: 'component',
+        include: ['tests/component/**/*.test.ts'],
+        environment: 'nuxt',
+        environmentOptions: { nuxt: { domEnvironment: 'happy-dom' } },
+        testTimeout: 60_000,
+        hookTimeout: 120_000,
+      },
+    })]
+  : []
+
 export default defineConfig({
   test: {
     projects: [
@@ -15,6 +36,7 @@ export default defineConfig({
           testTimeout: 60_000,
         },
       },
+      ...componentProject,
       {
         test: {
           name: 'server',

@@ -2,12 +2,26 @@
  * Certificate worker: a thin comlink adapter around certifyFamilyPoints (shared/certify), so
  * interval certificates of a run's points are computed off the page's main thread with progress
  * after each point. `cancel()` stops after the current point; the promise then resolves with the
- * certificates so far. `segments` does the same for the branch between consecutive points.
+ * certificates so far. `segments` does the same for the branch between consecutive points;
+ * `drawing` certifies one document's drawing and phases and returns the certified checklist.
  */
+
 import { expose } from 'comlink'
+import { certifiedExistence, provenParts, type CertifiedExistence } from '../shared/certify/checklist'
 import { certifyFamilyPoints, certifyFamilySegments, type FamilyPointInput, type PointCertificate, type SegmentCertificate } from '../shared/certify/family'
+import { certifyDrawing, describeCertificate, type DrawingCertificate } from '../shared/certify/pattern'
+import { analyzePattern } from '../shared/pattern/analyze'
+import { compilePattern } from '../shared/pattern/model'
 import type { FamilySettingsInput } from '../shared/types/family'
 import type { PatternDocument } from '../shared/types/pattern'
+
+/** A drawing's certificate, its one-line descriptions and the certified checklist of its hypotheses. */
+export interface DrawingCertificateResult {
+  certificate: DrawingCertificate
+  horizontal: string
+  phase: string | null
+  existence: CertifiedExistence
+}
 
 /** Creates the API object (exported for tests over a MessageChannel). */
 export function createCertifyWorkerApi() {
@@ -36,6 +50,16 @@ export function createCertifyWorkerApi() {
         await onProgress?.(k + 1, sorted.length - 1)
       }
       return out
+    },
+    /** Certifies the document's own drawing (and phases when it has them) with the checklist. */
+    async drawing(doc: PatternDocument): Promise<DrawingCertificateResult> {
+      const certificate = certifyDrawing(compilePattern(doc), doc.phases !== undefined)
+      return {
+        certificate,
+        horizontal: describeCertificate(certificate.horizontal),
+        phase: certificate.phase ? describeCertificate(certificate.phase) : null,
+        existence: certifiedExistence(analyzePattern(doc).existence, provenParts(certificate)),
+      }
     },
     /** Stop after the current point. */
     cancel(): void { cancelled = true },

@@ -1,5 +1,5 @@
 import { proxy, wrap, type Remote } from 'comlink'
-import type { CertifyWorkerApi } from '../../workers/certify.worker'
+import type { CertifyWorkerApi, DrawingCertificateResult } from '../../workers/certify.worker'
 import type { FamilyPointInput, PointCertificate, SegmentCertificate } from '#shared/certify/family'
 import type { FamilySettingsInput } from '#shared/types/family'
 import type { PatternDocument } from '#shared/types/pattern'
@@ -31,11 +31,16 @@ export function useCertifyWorker() {
     return ensure().segments(doc, settings, points, certificates, proxy(onProgress))
   }
 
+  /** Certifies one document's drawing and phases, with the certified checklist. */
+  function drawing(doc: PatternDocument): Promise<DrawingCertificateResult> {
+    return ensure().drawing(doc)
+  }
+
   function terminate() {
     worker?.terminate()
     worker = undefined
     api = undefined
   }
   onBeforeUnmount(terminate)
-  return { certify, segments, cancel: () => api?.cancel(), terminate }
+  return { certify, segments, drawing, cancel: () => api?.cancel(), terminate }
 }

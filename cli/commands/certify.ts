@@ -8,10 +8,9 @@
  */
 import { readFile } from 'node:fs/promises'
 import { parseArgs } from 'node:util'
-import { certifiedChecklist, provenParts, STATUS_WORDS } from '../../shared/certify/checklist'
+import { certifiedExistence, provenParts, STATUS_WORDS } from '../../shared/certify/checklist'
 import { certifyFamilyPoints, certifyFamilySegments } from '../../shared/certify/family'
 import { certifyDrawing, describeCertificate } from '../../shared/certify/pattern'
-import { hypothesesFromReport } from '../../shared/certify/report-hypotheses'
 import { analyzePattern } from '../../shared/pattern/analyze'
 import { compilePattern } from '../../shared/pattern/model'
 import { RUN_EXPORT_FORMAT } from '../../shared/types/runs'
@@ -19,7 +18,7 @@ import { readPatternFile } from '../read-document'
 
 export const summary = 'FILE [--pattern P] [--json] interval certificates of a pattern, or of every point of a run export (with its pattern)'
 
-const NORMS = 'Radii in the max-norm of the unknowns: positions of all vertices but the first (lattice length units), or phases ψ of all vertices but the first (radians).'
+const NORMS = 'Radii in the max-norm of the unknowns: positions of all vertices but the first (lattice length units; plane drawings: the free coordinates and wing angles of the square reduction, length units and radians), or phases ψ of all vertices but the first of each component (radians), on the published level rows of vertical balance.'
 
 async function readJson(file: string): Promise<unknown | { error: string }> {
   try { return JSON.parse(await readFile(file, 'utf8')) } catch (e) { return { error: `${file}: ${(e as Error).message}` } }
@@ -40,17 +39,21 @@ export async function run(args: string[]): Promise<number> {
   if ('error' in read) { console.error(read.error); return 2 }
   const m = compilePattern(read.doc)
   const cert = certifyDrawing(m, read.doc.phases !== undefined)
-  const checklist = certifiedChecklist(hypothesesFromReport(analyzePattern(read.doc)), provenParts(cert))
+  const existence = certifiedExistence(analyzePattern(read.doc).existence, provenParts(cert))
+  const checklist = existence.items
   const ok = cert.horizontal.certified && (cert.phase === null || cert.phase.certified)
   if (parsed.values.json) {
-    console.log(JSON.stringify({ certificate: cert, checklist, norms: NORMS }, null, 2))
+    console.log(JSON.stringify({ certificate: cert, checklist, existence, norms: NORMS }, null, 2))
   } else {
     console.log(`${read.doc.name}`)
     console.log(`  horizontal balance: ${describeCertificate(cert.horizontal)}`)
     console.log(`  phase balance:      ${cert.phase ? describeCertificate(cert.phase) : 'no phase data (trivial phases)'}`)
     console.log(`  ${NORMS}`)
-    console.log('Hypotheses of the existence theorem:')
+    console.log(`Hypotheses of the existence theorem (${existence.theorem}):`)
     for (const c of checklist) console.log(`  ${c.id.padEnd(4)} ${c.label.padEnd(42)} ${STATUS_WORDS[c.status]}`)
+    console.log(`  ${existence.line}`)
+    if (checklist.some(c => c.status === 'proven-interval')) console.log('  Proven means: a unique zero of the equations within the certified radius, with an invertible Jacobian there (balance and rigidity at that true zero, not at the float drawing).')
+    if (m.space === 'plane' && cert.horizontal.certified) console.log(`  Plane: rank M = 2V at that drawing, so the balanced drawings near it form a family of dimension ${m.nWings - 2} (|R| − 2) modulo translation.`)
     if (!checklist.every(c => c.status === 'proven-interval' || c.status === 'exact')) console.log('Items marked numerical evidence are not proofs.')
   }
   return ok ? 0 : 1

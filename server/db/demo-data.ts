@@ -37,12 +37,12 @@ export interface DemoProject {
 export const DEMO_PROJECTS: readonly DemoProject[] = [
   {
     name: 'Genus-three torus gluings',
-    description: `${DEMO_LAB}: balanced, rigid gluing patterns in the flat torus and their families under lattice shear.`,
+    description: `${DEMO_LAB}: balanced, rigid gluing patterns in the flat torus, their lattice and phase families, and where those families end.`,
     members: [{ key: 'owner', role: 'owner' }, { key: 'editor', role: 'editor' }, { key: 'viewer', role: 'viewer' }],
   },
   {
     name: 'Open-wing towers in the plane',
-    description: `${DEMO_LAB}: singly periodic constructions with open wings; phase families and their folds.`,
+    description: `${DEMO_LAB}: singly periodic constructions with open wings; turning wings until the cyclic order flips.`,
     members: [{ key: 'owner', role: 'owner' }, { key: 'editor', role: 'viewer' }],
   },
 ]

@@ -16,8 +16,8 @@ async function initialise(): Promise<Database> {
   const { db } = await openDatabase(config.databaseUrl)
   await applyMigrations(db, resolveMigrationsDir(config.migrationsDir || undefined))
   if (config.seedDemo && await isEmpty(db)) {
-    const result = await seedDemo(db, { hash: hashPassword })
-    console.info(`[wingfold] first start: seeded ${result.users} demo accounts and ${result.projects} projects`)
+    const result = await seedDemo(db, { hash: hashPassword, appVersion: config.public.appVersion })
+    console.info(`[wingfold] first start: seeded ${result.users} demo accounts, ${result.projects} projects, ${result.runs} runs and ${result.maps} maps`)
   }
   handle = db
   return db

@@ -6,8 +6,10 @@
  * proven radii and stores its own result.
  */
 import { and, eq, inArray } from 'drizzle-orm'
+import { certifiedExistence, runProvenParts, type CertifiedExistence } from '#shared/certify/checklist'
 import { certifyFamilySegments, verifyCertificateClaims, type CertificateClaim,
   type PointCertificate } from '#shared/certify/family'
+import { analyzePattern } from '#shared/pattern/analyze'
 import { claimsPerRequest, type RunCertificates } from '#shared/types/certificates'
 
 /** Re-proves the claims of run `run` and stores them (one transaction); 422 when one fails. */
@@ -74,4 +76,15 @@ export async function loadCertificates(runId: number): Promise<RunCertificates> 
       provenAt: r.updatedAt.toISOString() })),
     segments: segs.map(s => ({ from: s.fromIndex, to: s.toIndex, rMin: s.rMin, rMax: s.rMax })),
   }
+}
+
+/**
+ * The certified checklist of a run's pattern (shared/certify/checklist.ts, the one builder): the
+ * run's equations count as proven when every saved point has a stored certificate.
+ */
+export async function runExistence(run: { graphVersionId: number, settings: string }, pointIndices: number[],
+  certificates: RunCertificates): Promise<CertifiedExistence> {
+  const { doc, settings } = await loadRunProblem(run)
+  return certifiedExistence(analyzePattern(doc).existence,
+    runProvenParts(settings.path.kind, pointIndices, new Set(certificates.certificates.map(c => c.index))))
 }

@@ -1,17 +1,18 @@
 /**
  * Certificates along a family: every saved point (λ, u) of a run is certified on the system the
  * family follows at that λ — horizontal balance at the lattice ω(λ) for lattice paths, the phase
- * system at α(λ), K(λ) for phase paths (plane wing paths are not covered). The same function
- * re-proves a client's claims on the server (`verifyCertificateClaims`).
+ * system at α(λ), K(λ) for phase paths (the published level rows of the document's drawing,
+ * exactly the equations shared/families/phase.ts follows; phase paths do not move the drawing).
+ * Plane wing paths are not covered. The same function re-proves a client's claims on the server (`verifyCertificateClaims`).
  */
 import { latticePath } from '../families/lattice-paths'
 import { phasePath } from '../families/phase'
-import { compilePattern, type PatternModel } from '../pattern/model'
+import { compilePattern } from '../pattern/model'
 import { LATTICE_PATH_KINDS, PHASE_PATH_KINDS, parseFamilySettings, type FamilySettings, type FamilySettingsInput } from '../types/family'
 import type { PatternDocument } from '../types/pattern'
 import { horizontalSystem } from './horizontal'
 import { certifyZero, proveClaim, type CertifyOptions } from './krawczyk'
-import { phaseSystem, vertexPhaseRows, type PhaseRow } from './phase'
+import { modelPhaseRows, phaseSystem } from './phase'
 import type { PartCertificate } from './pattern'
 import type { IntervalSystem } from './system'
 import { lambdaInterval, latticePathBox, phasePathBox, segmentCentre } from './segment'
@@ -24,16 +25,15 @@ export interface FamilyPointInput { index?: number; lambda: number; u: ArrayLike
 /** The certificate of one point. */
 export interface PointCertificate { index: number; lambda: number; certificate: PartCertificate }
 
-/** Options: certificate options, phase rows, and progress (called after each point). */
+/** Options: certificate options and progress (called after each point). */
 export interface FamilyCertifyOptions extends CertifyOptions {
-  phaseRows?: (m: PatternModel) => PhaseRow[]
   onProgress?: (done: number, total: number) => void
 }
 
 type SystemAt = (lambda: number) => { sys: IntervalSystem; symmetric: boolean } | { notCovered: string }
 
 /** The interval system of the family at λ. */
-function familySystem(doc: PatternDocument, settings: FamilySettings, phaseRows?: (m: PatternModel) => PhaseRow[]): SystemAt {
+function familySystem(doc: PatternDocument, settings: FamilySettings): SystemAt {
   const m = compilePattern(doc)
   const kind = settings.path.kind
   if ((LATTICE_PATH_KINDS as readonly string[]).includes(kind)) {
@@ -43,10 +43,10 @@ function familySystem(doc: PatternDocument, settings: FamilySettings, phaseRows?
   }
   if ((PHASE_PATH_KINDS as readonly string[]).includes(kind)) {
     const path = phasePath(m, settings.path)
-    const rows = (phaseRows ?? vertexPhaseRows)(m)
-    return l => ({ sys: phaseSystem(m, { rows, alpha: path.alpha(l), weights: path.weights(l), psi: m.psi }), symmetric: false })
+    const { rows, pinned } = modelPhaseRows(m)
+    return l => ({ sys: phaseSystem(m, { rows, pinned, alpha: path.alpha(l), weights: path.weights(l), psi: m.psi }), symmetric: false })
   }
-  return () => ({ notCovered: 'plane wing paths: the published rigidity there also moves the wing directions' })
+  return () => ({ notCovered: 'plane wing paths: their unknowns are not the square reduction the plane certificate proves (shared/certify/plane.ts); certify the drawing itself' })
 }
 
 /** Certifies every point; a point of the wrong length is "enclosure too wide" with the reason. */
@@ -54,8 +54,8 @@ export function certifyFamilyPoints(
   doc: PatternDocument, settings: FamilySettings | FamilySettingsInput, points: FamilyPointInput[],
   options: FamilyCertifyOptions = {},
 ): PointCertificate[] {
-  const at = familySystem(doc, parseFamilySettings(settings), options.phaseRows)
-  const { onProgress, phaseRows: _rows, ...certifyOptions } = options
+  const at = familySystem(doc, parseFamilySettings(settings))
+  const { onProgress, ...certifyOptions } = options
   return points.map((pt, i) => {
     const index = pt.index ?? i
     const s = at(pt.lambda)
@@ -99,7 +99,7 @@ export function verifyCertificateClaims(
 export interface SegmentCertificate { from: number; to: number; lambdaFrom: number; lambdaTo: number; certificate: PartCertificate }
 
 /** The interval system of the family over λ ∈ L, or why there is none. */
-function familySystemOver(doc: PatternDocument, settings: FamilySettings, phaseRows?: (m: PatternModel) => PhaseRow[]): (L: Interval) => { sys: IntervalSystem; symmetric: boolean } | { notCovered: string } {
+function familySystemOver(doc: PatternDocument, settings: FamilySettings): (L: Interval) => { sys: IntervalSystem; symmetric: boolean } | { notCovered: string } {
   const m = compilePattern(doc)
   const kind = settings.path.kind
   if ((LATTICE_PATH_KINDS as readonly string[]).includes(kind)) {
@@ -110,13 +110,13 @@ function familySystemOver(doc: PatternDocument, settings: FamilySettings, phaseR
     }
   }
   if ((PHASE_PATH_KINDS as readonly string[]).includes(kind)) {
-    const rows = (phaseRows ?? vertexPhaseRows)(m)
+    const { rows, pinned } = modelPhaseRows(m)
     return (L) => {
       const box = phasePathBox(m, settings.path, L)
-      return 'notCovered' in box ? box : { sys: phaseSystem(m, { rows, alpha: m.alpha, weights: m.weight, psi: m.psi, alphaBox: box.alpha, weightBox: box.weights }), symmetric: false }
+      return 'notCovered' in box ? box : { sys: phaseSystem(m, { rows, pinned, alpha: m.alpha, weights: m.weight, psi: m.psi, alphaBox: box.alpha, weightBox: box.weights }), symmetric: false }
     }
   }
-  return () => ({ notCovered: 'plane wing paths: the published rigidity there also moves the wing directions' })
+  return () => ({ notCovered: 'plane wing paths: their unknowns are not the square reduction the plane certificate proves (shared/certify/plane.ts); certify the drawing itself' })
 }
 
 /** Most pieces a segment is split into before it is reported not certified. */
@@ -172,8 +172,8 @@ export function certifyFamilySegments(
   doc: PatternDocument, settings: FamilySettings | FamilySettingsInput, points: FamilyPointInput[],
   pointCertificates: PointCertificate[], options: FamilyCertifyOptions = {},
 ): SegmentCertificate[] {
-  const over = familySystemOver(doc, parseFamilySettings(settings), options.phaseRows)
-  const { onProgress, phaseRows: _rows, ...certifyOptions } = options
+  const over = familySystemOver(doc, parseFamilySettings(settings))
+  const { onProgress, ...certifyOptions } = options
   const byIndex = new Map(pointCertificates.map(c => [c.index, c.certificate]))
   const sorted = points.map((p, i) => ({ ...p, index: p.index ?? i })).sort((a, b) => a.index - b.index)
   const out: SegmentCertificate[] = []

@@ -27,6 +27,29 @@ function translation(k1: number, k2: number, lat: LatticeBox, c: 0 | 1): Interva
   return add(mul(point(k1), lat.w1[c]), mul(point(k2), lat.w2[c]))
 }
 
+/** The block P_e/ℓ_e = [[u_y², −u_x u_y], [−u_x u_y, u_x²]]/ℓ_e over an edge-vector box: [a, b, c]. */
+export function projectorOverLength(x: Interval, y: Interval): Interval[] {
+  const l = hypot(x, y)
+  const [ux, uy] = unitVector(x, y)
+  return [div(sqr(uy), l), neg(div(mul(ux, uy), l)), div(sqr(ux), l)]
+}
+
+/**
+ * Over the closed non-loop edges, with `edgeAt(e)` the edge vector at a point: the shortest length
+ * (half of it bounds the radius: beyond, a box can hold a collapsed edge and J's enclosure is
+ * unbounded) and 1/mean length (the natural scale of J).
+ */
+export function edgeLengthStats(m: PatternModel, edgeAt: (e: number) => [Interval, Interval]): { shortest: number; scale: number } {
+  let shortest = Infinity, total = 0, count = 0
+  for (let e = 0; e < m.nEdges; e++) {
+    if (m.edgeFrom[e] === m.edgeTo[e]) continue
+    const [ex, ey] = edgeAt(e)
+    const l = Math.hypot(ex.lo, ey.lo)
+    shortest = Math.min(shortest, l); total += l; count++
+  }
+  return { shortest, scale: count && total > 0 ? count / total : 1 }
+}
+
 /**
  * The reduced horizontal system of a torus model in lattice `lat` (a point lattice, or a box:
  * then the enclosures hold for every lattice in it), vertex 0 pinned at `pin`.
@@ -48,16 +71,11 @@ export function horizontalSystem(m: PatternModel, lattice: Lattice | LatticeBox,
     const v = m.edgeFrom[e]!, w = m.edgeTo[e]!
     return [0, 1].map(c => add(sub(coord(lo, hi, w, c as 0 | 1), coord(lo, hi, v, c as 0 | 1)), T[e]![c]!)) as [Interval, Interval]
   }
-  let total = 0, count = 0
-  for (let e = 0; e < m.nEdges; e++) {
-    if (m.edgeFrom[e] === m.edgeTo[e]) continue
-    const [ex, ey] = edge(m.positions.subarray(2), m.positions.subarray(2), e)
-    total += Math.hypot(ex.lo, ey.lo); count++
-  }
+  const here = m.positions.subarray(2)
   return {
     n,
     symmetric: true,
-    jacobianScale: count && total > 0 ? count / total : 1,
+    jacobianScale: edgeLengthStats(m, e => edge(here, here, e)).scale,
     residualEnclosure(x: Float64Array): IntervalVector {
       const lo = new Float64Array(n), hi = new Float64Array(n)
       const addTo = (v: number, c: number, s: number, u: Interval) => {
@@ -85,23 +103,11 @@ export function horizontalSystem(m: PatternModel, lattice: Lattice | LatticeBox,
       for (let e = 0; e < m.nEdges; e++) {
         const v = m.edgeFrom[e]!, w = m.edgeTo[e]!
         if (v === w) continue
-        const [x, y] = edge(lo, hi, e)
-        const l = hypot(x, y)
-        const [ux, uy] = unitVector(x, y)
-        const P = [div(sqr(uy), l), neg(div(mul(ux, uy), l)), div(sqr(ux), l)]
+        const P = projectorOverLength(...edge(lo, hi, e))
         block(v, w, 1, P); block(w, v, 1, P); block(v, v, -1, P); block(w, w, -1, P)
       }
       return b.build()
     },
-    maxRadius(x: Float64Array): number {
-      // beyond half the shortest edge a box can hold a collapsed edge: J's enclosure is unbounded there
-      let shortest = Infinity
-      for (let e = 0; e < m.nEdges; e++) {
-        if (m.edgeFrom[e] === m.edgeTo[e]) continue
-        const [ex, ey] = edge(x, x, e)
-        shortest = Math.min(shortest, Math.hypot(ex.lo, ey.lo))
-      }
-      return shortest / 2
-    },
+    maxRadius: (x: Float64Array): number => edgeLengthStats(m, e => edge(x, x, e)).shortest / 2,
   }
 }

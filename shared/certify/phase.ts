@@ -2,15 +2,17 @@
  * Vertical (phase) balance as an interval system for the certificate, for any row form:
  * every published or earlier form of the phase equations is a list of rows
  *   F_r(ψ) = Σ_{(e, s) ∈ row r} s·K_e sin φ_e,   φ_e = ψ(to e) − ψ(from e) + k_e·α,
- * so the certificate takes the rows as data. `vertexPhaseRows` gives the vertex sums of the
- * current phase system (G(v) = Σ_{h at v} K sin φ_h); the cut-wise level form of H. Chen,
- * M. Traizet, "Gluing Karcher–Scherk saddle towers I", arXiv 2103.15676, 2021, Def. 6.2, is
- * another list of rows (one per length level and merged component, signs +1 for edges leaving
- * the component). Unknowns: ψ of every vertex but the pinned ones (one per component, the
- * global phase shift); α and K are fixed doubles.
+ * so the certificate takes the rows as data. Every certificate of Wingfold uses the published
+ * rows: the cut-wise level form of vertical balance (H. Chen, M. Traizet, "Gluing Karcher–Scherk
+ * saddle towers I", arXiv 2103.15676, 2021, Def. 6.2 and 6.6; H. Chen, Comm. Anal. Geom. 32,
+ * 2024, Def. 2) built by shared/pattern/vertical-levels.ts (`modelPhaseRows`). Unknowns: ψ of
+ * every vertex but the pinned ones (one per component, the global phase shift); α and K are
+ * fixed doubles (or enclosures over a λ interval).
  * ∂F_r/∂ψ_u = Σ s·K_e cos φ_e ([to e = u] − [from e = u]).
  */
-import type { PatternModel } from '../pattern/model'
+import type { Lattice, PatternModel } from '../pattern/model'
+import { modelLevels } from '../pattern/vertical-balance'
+import type { LevelStructure } from '../pattern/vertical-levels'
 import { add, cos, interval, mul, point, sin, sub, type Interval } from './interval'
 import { pred, succ } from './round'
 import { IntervalTripletBuilder, type IntervalSystem, type IntervalTriplets, type IntervalVector } from './system'
@@ -18,16 +20,21 @@ import { IntervalTripletBuilder, type IntervalSystem, type IntervalTriplets, typ
 /** One phase equation: closed edges with their signs. */
 export type PhaseRow = { edge: number; sign: 1 | -1 }[]
 
-/** Rows G(v), v ≠ pinned vertex 0, of the vertex-sum phase system (loops cancel and are left out). */
-export function vertexPhaseRows(m: PatternModel): PhaseRow[] {
-  const rows: PhaseRow[] = Array.from({ length: m.nVertices }, () => [])
-  for (let e = 0; e < m.nEdges; e++) {
-    const v = m.edgeFrom[e]!, w = m.edgeTo[e]!
-    if (v === w) continue
-    rows[v]!.push({ edge: e, sign: 1 })
-    rows[w]!.push({ edge: e, sign: -1 })
-  }
-  return rows.slice(1)
+/**
+ * The published phase rows of a drawing: the level rows of vertical balance on cuts (one per
+ * length level and merged component, signs +1 for edges leaving the component at their `from`
+ * end) and one pinned vertex per component (the smallest, as the level structure drops it).
+ * The level structure is read from the drawing's float lengths with the equal-length tolerance
+ * of shared/pattern/vertical-levels.ts: the certificate proves a zero of THESE equations; which
+ * edges share a level is the drawing's numerical verdict, not part of the proof.
+ */
+export function publishedPhaseRows(s: LevelStructure): { rows: PhaseRow[]; pinned: number[] } {
+  return { rows: s.rows.map(r => r.terms.map(t => ({ edge: t.edge, sign: t.sign }))), pinned: [...s.pinned] }
+}
+
+/** The published phase rows of the model's drawing (positions p, lattice lat; the document's by default). */
+export function modelPhaseRows(m: PatternModel, p: Float64Array = m.positions, lat: Lattice = m.lattice): { rows: PhaseRow[]; pinned: number[] } {
+  return publishedPhaseRows(modelLevels(m, p, lat))
 }
 
 /** Data of a phase system: rows, pinned vertices and the fixed α, K, ψ of the pinned vertices. */
@@ -88,12 +95,4 @@ export function phaseSystem(m: PatternModel, data: PhaseSystemData): IntervalSys
     maxRadius: () => Math.PI,
     jacobianScale: data.weights.length ? data.weights.reduce((a, k) => a + Math.abs(k), 0) / data.weights.length : 1,
   }
-}
-
-/**
- * A phase system from plain functions, for a row form computed elsewhere: `rowsOf(m)` returns
- * the rows in the form above. Kept as the single entry for other phase formulations.
- */
-export function phaseSystemFromRows(m: PatternModel, rowsOf: (m: PatternModel) => PhaseRow[], data: Omit<PhaseSystemData, 'rows'>): ReturnType<typeof phaseSystem> {
-  return phaseSystem(m, { ...data, rows: rowsOf(m) })
 }

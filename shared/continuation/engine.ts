@@ -139,6 +139,7 @@ export class Continuation {
     }
     if (a.sigma !== undefined) p.sigmaMin = a.sigma
     if (this.problem.diagnostics) p.diagnostics = this.problem.diagnostics(a.y.subarray(0, n), a.y[n]!)
+    for (const e of this.problem.events ?? []) e.accepted?.(a.y.subarray(0, n), a.y[n]!)
     this.points.push(p)
     return p
   }

@@ -21,6 +21,13 @@ export interface ProblemEvent {
    * crossing; undefined = report the crossing itself, marked as not located.
    */
   limit?(u: Float64Array, lambda: number): EventLimit | undefined
+  /**
+   * Called with every point the engine accepts (the start, located points it keeps, step ends),
+   * in order, after `fn` was evaluated there. An event whose `fn` is measured against a reference
+   * that moves along the branch (the wall test: the structure at the last accepted point) updates
+   * it here so that `fn` keeps the sign it had at that point.
+   */
+  accepted?(u: Float64Array, lambda: number): void
 }
 
 /** The limit of an event beyond the crossing of its test function (see {@link ProblemEvent.limit}). */

@@ -86,8 +86,11 @@ export class FamilyRunner {
     this.settings = parseFamilySettings(settings)
     this.setup = setupFamily(doc, this.settings)
     const branch = { id: `family-${this.settings.path.kind}` }
+    // a restart may begin at a special point where F_u is singular by nature (a branch point,
+    // followed along its kernel to the other branch; a fold): the given tangent leads off it
+    const options = from ? { ...this.setup.options, allowSingularStart: true } : this.setup.options
     // no unknowns (one tower): nothing to continue, the family is the path itself (path-only.ts)
-    this.run = createFamilyRun(this.setup.problem, from ?? this.setup.start, this.setup.options, branch)
+    this.run = createFamilyRun(this.setup.problem, from ?? this.setup.start, options, branch)
     this.stepSize = this.run.options.initialStep
     if (!this.run.started) this.status = 'refused'
   }

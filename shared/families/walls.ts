@@ -15,9 +15,10 @@
  *   by its column norms: it has a simple zero where the rank drops transversally.
  * They are recorded, not terminal: the drawing family goes on (only the phase branch may end at a
  * wall, see `describeWall`), and τ maps draw them as crossings.
- * The wall test is a step function (+½ while the structure is the start's, −½ after): the engine
- * brackets the sign change and bisects it to its locate tolerance. `describeWall` gives the
- * verdicts before, at and after.
+ * The wall test compares the structure with the one at the last accepted point and changes sign
+ * at every change (see `wallEvent`); near a wall its size is the gap of the two lengths that meet,
+ * so the engine locates each wall to its locate tolerance. `describeWall` gives the verdicts
+ * before, at and after.
  */
 import { LuDecomposition, type Matrix } from 'ml-matrix'
 import type { ProblemEvent } from '../continuation/types'
@@ -35,11 +36,55 @@ function sameParts(a: LevelStructure, b: LevelStructure): boolean {
   return a.partKeys.length === b.partKeys.length && a.partKeys.every((k, i) => k === b.partKeys[i])
 }
 
-/** The level structure of the drawing at (u, λ). */
-function levelsAt(m: PatternModel, at: DrawingAt, u: Float64Array, l: number): LevelStructure {
-  const d = at(u, l)
-  const mm = d.model ?? m
-  return levelStructure(mm, edgeLengths(mm, d.p, d.lattice))
+/**
+ * Smallest relative gap (ℓ_f − ℓ_e)/ℓ_f between consecutive closed-edge lengths that lie in
+ * different levels (1 when there is one level): it reaches the tie tolerance exactly where a
+ * wall's two lengths meet.
+ */
+function smallestLevelGap(m: PatternModel, lengths: Float64Array, s: LevelStructure): number {
+  const sorted = s.levels.flatMap(lev => lev.edges.map(e => lengths[e]!)).sort((a, b) => a - b)
+  let gap = 1
+  for (let i = 1; i < sorted.length; i++) {
+    const g = (sorted[i]! - sorted[i - 1]!) / (sorted[i]! || 1)
+    if (g > s.tolerance) gap = Math.min(gap, g)
+  }
+  return gap
+}
+
+/**
+ * The wall test. Its reference is the level structure at the LAST ACCEPTED point (`accepted`,
+ * called by the engine), and it carries a sign that flips each time the accepted structure
+ * changes: fn = ±(tol + smallest level gap), + while the structure is the reference's with the
+ * current sign. So every change of structure along the branch is a sign change between two
+ * accepted points, not only the first change against the start, and near a wall fn is the length
+ * difference of the two edges that meet (relative, continuous up to the 1e-9 tie tolerance):
+ * the engine's regula falsi locates it to its locate tolerance. When two walls fall inside one
+ * step, the first is located and the step's end becomes the reference (the second is not
+ * separated from it).
+ */
+function wallEvent(m: PatternModel, at: DrawingAt, terminal: boolean): ProblemEvent {
+  let ref: LevelStructure | undefined
+  let sign = 1
+  const structureAt = (u: Float64Array, l: number) => {
+    const d = at(u, l)
+    const mm = d.model ?? m
+    const lengths = edgeLengths(mm, d.p, d.lattice)
+    const s = levelStructure(mm, lengths)
+    return { s, gap: smallestLevelGap(mm, lengths, s) }
+  }
+  return {
+    kind: 'wall', label: 'two edge lengths that enter the vertical equations become or stop being equal', terminal,
+    fn: (u, l) => {
+      const { s, gap } = structureAt(u, l)
+      ref ??= s
+      return (sameParts(s, ref) ? sign : -sign) * (s.tolerance + gap)
+    },
+    accepted: (u, l) => {
+      const { s } = structureAt(u, l)
+      if (ref && !sameParts(s, ref)) sign = -sign
+      ref = s
+    },
+  }
 }
 
 /** The phases of the model are trivial (every φ within 1e-9 of 0 or π). */
@@ -131,13 +176,7 @@ export function conditionEvents(m: PatternModel, at: DrawingAt, o: ConditionEven
       return signedLineMargin(mm, d.p, d.lattice, pairs)
     },
   })
-  if (o.walls && m.nEdges > 1) {
-    let ref: LevelStructure | undefined
-    ev.push({
-      kind: 'wall', label: 'two edge lengths that enter the vertical equations become or stop being equal', terminal: o.terminal,
-      fn: (u, l) => { const s = levelsAt(m, at, u, l); ref ??= s; return sameParts(s, ref) ? 0.5 : -0.5 },
-    })
-  }
+  if (o.walls && m.nEdges > 1) ev.push(wallEvent(m, at, o.terminal))
   if (o.planeRankTolerance !== undefined) {
     let columns: number[] | undefined
     ev.push({

@@ -102,6 +102,7 @@ export function analyzePattern(doc: PatternDocument, options?: AnalyzeOptions): 
   const phi = phaseDifferences(m, m.psi, m.alpha)
   const keepsMirrorPlanes = Array.from(phi).every(x => distanceToMirror(x) <= o.mirrorTolerance)
   const failing = (Object.keys(verdicts) as VerdictName[]).filter(k => !verdicts[k].ok)
+  const zero = zeroLengthEdges(Array.from(edgeLengths(m, m.positions, m.lattice)))
   const drawing = checkStraightDrawing(m)
   const drawingOk = drawing.ok && verdicts.cyclicOrder.ok && verdicts.edgeLengths.ok && verdicts.lattice.ok
   const existence = existenceChecklist({
@@ -115,13 +116,13 @@ export function analyzePattern(doc: PatternDocument, options?: AnalyzeOptions): 
     orientable: verdicts.orientable.ok,
     drawing: {
       ok: drawingOk,
-      checked: drawing.checked || !drawingOk,
+      checked: drawing.checked,
       detail: [
         drawing.coincidentVertices.length ? `coincident vertices ${drawing.coincidentVertices.map(([a, b]) => `${m.vertexIds[a]}=${m.vertexIds[b]}`).join(', ')}` : '',
         drawing.crossings.length ? `crossing edges ${drawing.crossings.map(([a, b]) => `${m.edgeIds[a]}×${m.edgeIds[b]}`).join(', ')}` : '',
-        verdicts.cyclicOrder.ok ? '' : 'drawn order differs from σ',
-        verdicts.edgeLengths.ok ? '' : 'collapsed edge',
-        drawing.checked ? '' : 'crossings not tested above 400 edges',
+        drawing.wingCrossings.length ? `crossing wings ${drawing.wingCrossings.map(w => `${m.wingIds[w.wing]}×${w.edge !== undefined ? m.edgeIds[w.edge] : m.wingIds[w.otherWing!]}`).join(', ')}` : '',
+        verdicts.cyclicOrder.ok || zero.length ? '' : 'drawn order differs from σ',
+        zero.length ? `degenerate: zero-length edge${zero.length > 1 ? 's' : ''} ${zero.map(e => m.edgeIds[e]).join(', ')}` : verdicts.edgeLengths.ok ? '' : 'collapsed edge',
       ].filter(Boolean).join('; ') || 'no crossings, distinct points, order = σ',
     },
     balanced: verdicts.balance.ok,
@@ -220,11 +221,32 @@ function faceClosureVerdict(m: PatternModel, faces: Faces, index: number | null)
   }
 }
 
-function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
+/**
+ * Closed edges whose ends coincide (length ≤ 1e-12 × the longest edge, or not finite): their
+ * direction is undefined, so the drawing is degenerate and no verdict that uses edge directions
+ * (order, balance, rigidity, ordinary towers) can be judged.
+ */
+export function zeroLengthEdges(lengths: readonly number[]): number[] {
+  const longest = lengths.reduce((a, l) => (Number.isFinite(l) ? Math.max(a, l) : a), 0)
+  return lengths.flatMap((l, e) => (!Number.isFinite(l) || l <= 1e-12 * longest ? [e] : []))
+}
+
+/** Sentence for the verdicts a degenerate drawing leaves undefined. */
+function degenerateExplanation(m: PatternModel, zero: number[], what: string): string {
+  const ids = zero.map(e => m.edgeIds[e]!).join(', ')
+  return `Degenerate drawing: edge${zero.length > 1 ? 's' : ''} ${ids} ${zero.length > 1 ? 'have' : 'has'} zero length (${zero.length > 1 ? 'their' : 'its'} ends coincide), so ${what} cannot be judged.`
+}
+
+/** The verdicts of the drawing's geometry. */
+type GeometricVerdicts = Pick<PatternVerdicts, 'cyclicOrder' | 'edgeLengths' | 'openWings' | 'balance' | 'rigidity' | 'ordinary'>
+
+function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>): GeometricVerdicts {
   const p = m.positions, lat = m.lattice
+  const lengths = Array.from(edgeLengths(m, p, lat))
+  const zero = zeroLengthEdges(lengths)
+  if (zero.length) return degenerateGeometricVerdicts(m, o, lengths, zero)
   const margins = Array.from(orderMargins(m, p, lat, o.orderTolerance))
   const flipped = margins.flatMap((x, v) => (x < 0 ? [m.vertexIds[v]!] : []))
-  const lengths = Array.from(edgeLengths(m, p, lat))
   const mean = meanEdgeLength(m, p, lat)
   const minLength = lengths.length ? minOf(lengths) : null
   const short = lengths.flatMap((l, e) => (l <= o.collapseTolerance * mean ? [m.edgeIds[e]!] : []))
@@ -288,6 +310,48 @@ function geometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>) {
         witness: { vertices: bad.map(t => m.vertexIds[t.vertex]!), halfEdges: bad.flatMap(t => t.coinciding.map(h => m.halfEdgeIds[h]!)) },
         explanation: 'At some vertices too many wing lines coincide (degenerate or special), so no ordinary saddle tower fits there.',
       } : {}),
+    },
+  }
+}
+
+/**
+ * The geometric verdicts of a drawing with zero-length edges: the edge-length verdict names them,
+ * and order, balance, rigidity and ordinary towers fail as not judgeable (their numbers are
+ * NaN / null, shown as "—"), with the edges and their end vertices as witness. Never throws.
+ */
+function degenerateGeometricVerdicts(m: PatternModel, o: Required<AnalyzeOptions>, lengths: number[], zero: number[]): GeometricVerdicts {
+  const ends = [...new Set(zero.flatMap(e => [m.edgeFrom[e]!, m.edgeTo[e]!]))].sort((a, b) => a - b).map(v => m.vertexIds[v]!)
+  const edges = zero.map(e => m.edgeIds[e]!)
+  const mean = lengths.reduce((a, l) => a + l, 0) / lengths.length
+  const [wx, wy] = openWingSum(m)
+  const nan = (n: number) => Array.from({ length: n }, () => Number.NaN)
+  return {
+    cyclicOrder: {
+      ok: false, minMargin: Number.NaN, margins: nan(m.nVertices), explicit: m.rotationExplicit, tolerance: o.orderTolerance,
+      witness: { vertices: ends }, explanation: degenerateExplanation(m, zero, `the drawn order at ${ends.join(', ')}`),
+    },
+    edgeLengths: {
+      ok: false, minLength: 0, relativeMinLength: 0, tolerance: o.collapseTolerance,
+      witness: { edges: lengths.flatMap((l, e) => (l <= o.collapseTolerance * mean ? [m.edgeIds[e]!] : [])) },
+      explanation: `Degenerate drawing: edge${zero.length > 1 ? 's' : ''} ${edges.join(', ')} ${zero.length > 1 ? 'have' : 'has'} zero length (the ends coincide).`,
+    },
+    openWings: {
+      ok: Math.hypot(wx, wy) <= o.wingTolerance, sum: [wx, wy] as [number, number], norm: Math.hypot(wx, wy), tolerance: o.wingTolerance,
+      ...(Math.hypot(wx, wy) > o.wingTolerance ? { explanation: 'The open wings\' directions do not sum to zero, so no drawing of this pattern can balance.' } : {}),
+    },
+    balance: {
+      ok: false, residualNorm: Number.NaN, maxVertexResidual: Number.NaN, residuals: m.vertexIds.map(() => [Number.NaN, Number.NaN] as [number, number]),
+      tolerance: o.balanceTolerance, witness: { vertices: ends }, explanation: degenerateExplanation(m, zero, 'balance'),
+    },
+    rigidity: {
+      method: 'dense' as const, reason: `zero-length edges ${edges.join(', ')}`, trivialDimension: 2, dimension: 0,
+      sigmaMin: null, lengthScale: mean, inertia: null, eigenvalues: [], tolerance: o.rigidityTolerance,
+      ok: false, explanation: degenerateExplanation(m, zero, 'rigidity'),
+    },
+    ordinary: {
+      // a tower whose edge has no direction is not ordinary; the others are classified as usual
+      ok: false, kinds: classifyVertices(m).map(t => (ends.includes(m.vertexIds[t.vertex]!) ? 'degenerate' as const : t.kind)), notable: [], tolerance: 1e-9, nearTolerance: 1e-6,
+      witness: { vertices: ends, halfEdges: [] }, explanation: degenerateExplanation(m, zero, `the towers at ${ends.join(', ')}`),
     },
   }
 }

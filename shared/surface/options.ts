@@ -14,7 +14,7 @@ export const surfaceSettingsSchema = z.object({
   rows: z.number().int().min(8).max(256).refine(n => n % 2 === 0, 'rows must be even').default(24),
   /** Columns on each side of a tower sector's middle. */
   radial: z.number().int().min(2).max(64).default(5),
-  /** Where a tower's core ends along each wing (|a − b| ≤ cutoff in Scherk's coordinates). */
+  /** Where a tower's core ends along each wing (|u| ≤ cutoff in the tower's conjugate coordinate, ≈ the distance along the wing). */
   cutoff: z.number().positive().max(20).default(2.5),
   /** Length of the shortest closed edge, in surface units (vertical period 2π). */
   edgeLength: z.number().positive().max(1e4).default(4 * Math.PI),

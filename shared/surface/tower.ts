@@ -1,23 +1,22 @@
 /**
- * The core of one saddle tower in the schematic surface, from Scherk's singly periodic tower
- *   sin z = sinh x sinh y
- * (H. F. Scherk, "Bemerkungen über die kleinste Fläche innerhalb gegebener Grenzen", J. reine
- * angew. Math. 13, 1835), which is the four-wing member of the Karcher–Scherk saddle towers
- * (H. Karcher, "Embedded minimal surfaces derived from Scherk's examples", Manuscripta Math. 62,
- * 1988). A tower with 2n wings has 2n sectors between consecutive wings (counter-clockwise order
- * σ); sector j is occupied during one half period and empty during the other, alternately, and in
- * its own quarter-plane coordinates (a, b) ≥ 0 (a along wing j, b along wing j+1) it is the Scherk
- * curve sinh a sinh b = |sin t|, t = z − ψ. Each sector's quarter plane is bent onto the actual
- * sector angle β_j by scaling the polar angle by β_j/(π/2): exact Scherk for four orthogonal
- * wings, a schematic otherwise (the relaxation then moves it towards a minimal surface).
+ * The core of one saddle tower in the schematic surface: the symmetric Karcher–Scherk tower with
+ * 2n wings from its Weierstrass data (H. Karcher, "Embedded minimal surfaces derived from
+ * Scherk's examples", Manuscripta Math. 62, 1988; ./karcher.ts), whose four-wing member is
+ * Scherk's tower sin z = sinh x sinh y (H. F. Scherk, J. reine angew. Math. 13, 1835). The tower
+ * has 2n sectors between consecutive wings (counter-clockwise order σ); sector j is occupied
+ * during one half period and empty during the other, alternately. In sector j the mesh has rows
+ * of constant height t = z − ψ (the level curves h = t of the Weierstrass chart) and columns of
+ * constant u = Im H ∈ [−M, M] (the conjugate harmonic coordinate, ≈ the distance along the wing
+ * far out), so rows and columns are the images of a conformal grid. At the two saddle heights
+ * (ψ and ψ + π) the rows are the 2n rays from the axis to the wings. The points at |u| = M form,
+ * for each wing, a closed loop over one period: where the wing's vertical sheet starts.
  *
- * The curve is parametrised by μ = a − b ∈ [−M, M]: with σ = arcosh(2s + cosh μ),
- * a = (σ + μ)/2, b = (σ − μ)/2 solves sinh a sinh b = (cosh σ − cosh μ)/2 = s (derived from
- * sinh a sinh b = (cosh(a + b) − cosh(a − b))/2). At s = 0 (t = 0, π) it is the two rays, and the
- * 2n rays meet at the tower's centre: the tower's two saddle points per period, at heights ψ and
- * ψ + π. The points at μ = ±M form, for each wing, a closed loop over one period: where the
- * wing's vertical sheet starts.
+ * Wing directions: the symmetric tower's wings are at θ_0 + kπ/n; when the actual wings are not
+ * equally spaced, every horizontal point is bent by mapping its polar angle piecewise linearly
+ * (./tower.ts `bendPoint`), which keeps heights and radii. This is exact (a rotation) for equally
+ * spaced wings and a schematic otherwise.
  */
+import { karcherPoint, saddleHeight, solveInWedge, solveOnRay, type Complex } from './karcher'
 import type { MeshBuilder } from './mesh'
 
 /** Input of {@link buildTowerCore}. */
@@ -37,21 +36,26 @@ export interface TowerSpec {
   rows: number
   /** Columns on each side of μ = 0. */
   radial: number
-  /** Cut-off |μ| ≤ M. */
+  /** Cut-off |u| ≤ M (u the conjugate coordinate of ./karcher.ts, about the distance along the wing). */
   cutoff: number
 }
 
-/** Horizontal point of sector coordinates (a, b) in the sector from angle θ of width β, relative to the centre. */
-export function sectorPoint(a: number, b: number, theta: number, beta: number): [number, number] {
-  const rho = Math.hypot(a, b)
-  const ang = theta + Math.atan2(b, a) * beta / (Math.PI / 2)
+/**
+ * Bends a horizontal point of the symmetric tower (wings at kπ/n) onto the actual wing angles:
+ * the polar angle φ in [kπ/n, (k+1)π/n] goes linearly onto [θ_k, θ_{k+1}], the radius is kept.
+ * A rotation when the actual wings are equally spaced; otherwise the schematic's only
+ * approximation (the relaxation then moves it towards a minimal surface).
+ */
+export function bendPoint(x: number, y: number, angles: number[]): [number, number] {
+  const d = angles.length, step = 2 * Math.PI / d
+  const rho = Math.hypot(x, y)
+  if (rho === 0) return [0, 0]
+  let phi = Math.atan2(y, x)
+  if (phi < 0) phi += 2 * Math.PI
+  const k = Math.min(d - 1, Math.floor(phi / step))
+  const beta = (k + 1 < d ? angles[k + 1]! : angles[0]! + 2 * Math.PI) - angles[k]!
+  const ang = angles[k]! + (phi - k * step) * beta / step
   return [rho * Math.cos(ang), rho * Math.sin(ang)]
-}
-
-/** Scherk's curve sinh a sinh b = s at μ = a − b (see the header). */
-export function scherkCurve(s: number, mu: number): [a: number, b: number] {
-  const sig = Math.acosh(2 * s + Math.cosh(mu))
-  return [(sig + mu) / 2, Math.max(0, (sig - mu) / 2)]
 }
 
 /** Builds the tower core into `b`; returns the key of wing j's cut-off loop at row r (0 ≤ r < rows). */
@@ -65,17 +69,25 @@ export function buildTowerCore(b: MeshBuilder, t: TowerSpec): (j: number, r: num
     }
     return `${p}s${j}:${r}:${i}`
   }
+  const n = d / 2
   for (let j = 0; j < d; j++) {
-    const theta = t.angles[j]!
-    const beta = (j + 1 < d ? t.angles[j + 1]! : t.angles[0]! + 2 * Math.PI) - theta
+    if (t.firstHalf[j] === t.firstHalf[(j + 1) % d]) throw new Error('surface tower: sectors must alternate between the two half periods')
+  }
+  // Option A (sector 0 first): the saddle at w = ∞ is the lower one, at ψ, and the even wedges
+  // fill the half period above it; otherwise the saddle at w = 0 is at ψ (./karcher.ts).
+  const lowerAtInfinity = t.firstHalf[0]!
+  const core = symmetricCore(n, N, m, t.cutoff, lowerAtInfinity)
+  const place = (j: number, r: number, i: number): [number, number] => {
+    const o = 2 * ((j * (N + 1) + r) * (2 * m + 1) + i + m)
+    return bendPoint(core[o]!, core[o + 1]!, t.angles)
+  }
+  for (let j = 0; j < d; j++) {
     const r0 = t.firstHalf[j] ? 0 : half
     const idx: number[][] = []
     for (let r = r0; r <= r0 + half; r++) {
-      const s = r % half === 0 ? 0 : Math.abs(Math.sin(2 * Math.PI * r / N))
       const row: number[] = []
       for (let i = -m; i <= m; i++) {
-        const [a, bb] = scherkCurve(s, t.cutoff * i / m)
-        const [x, y] = sectorPoint(a, bb, theta, beta)
+        const [x, y] = place(j, r, i)
         // Points at r = N are the row-0 points one period up: stored at row 0's height.
         const z = t.psi + 2 * Math.PI * (r % N) / N
         row.push(b.vertex(key(j, r, i), t.centre[0] + x, t.centre[1] + y, z, t.owner))
@@ -95,4 +107,43 @@ export function buildTowerCore(b: MeshBuilder, t: TowerSpec): (j: number, r: num
     const own = t.firstHalf[j] === inFirst
     return own ? `${p}s${j}:${r}:${m}` : `${p}s${(j - 1 + d) % d}:${r}:${-m}`
   }
+}
+
+const cores = new Map<string, Float64Array>()
+
+/**
+ * Horizontal points (x, y) of the symmetric 2n-wing tower at sector j, row r (0 ≤ r ≤ rows) and
+ * column i (−m ≤ i ≤ m), computed once per (n, rows, m, cutoff, which saddle is lower): every
+ * tower of that degree shares them before bending. Rows outside sector j's half period stay 0.
+ */
+function symmetricCore(n: number, N: number, m: number, cutoff: number, lowerAtInfinity: boolean): Float64Array {
+  const id = `${n}:${N}:${m}:${cutoff}:${lowerAtInfinity}`
+  const found = cores.get(id)
+  if (found) return found
+  const d = 2 * n, half = N / 2
+  const h0 = saddleHeight(n), hBase = lowerAtInfinity ? h0 - Math.PI : h0
+  const out = new Float64Array(2 * d * (N + 1) * (2 * m + 1))
+  for (let j = 0; j < d; j++) {
+    const r0 = (j % 2 === 0) === lowerAtInfinity ? 0 : half
+    for (let r = r0; r <= r0 + half; r++) {
+      for (let i = -m; i <= m; i++) {
+        const u = (j % 2 === 0 ? 1 : -1) * cutoff * i / m
+        let w: Complex | null
+        if (r % half === 0) {
+          const outer = (r % N === 0) === lowerAtInfinity
+          if (i === 0) continue
+          w = i > 0 ? solveOnRay(n, j, Math.abs(u), outer) : solveOnRay(n, (j + 1) % d, Math.abs(u), outer)
+        } else {
+          w = solveInWedge(n, j, hBase + 2 * Math.PI * r / N, u)
+        }
+        if (!w) throw new Error(`surface tower: no point of the ${d}-wing tower at row ${r}, column ${i}`)
+        const p = karcherPoint(n, w)
+        const o = 2 * ((j * (N + 1) + r) * (2 * m + 1) + i + m)
+        out[o] = p.x; out[o + 1] = p.y
+      }
+    }
+  }
+  if (cores.size > 32) cores.clear()
+  cores.set(id, out)
+  return out
 }

@@ -67,7 +67,8 @@ export const runCreateSchema = z.object({
   settings: FamilySettingsSchema,
   /** A restart: the run and the point it continues from. */
   parentRunId: z.number().int().positive().optional(),
-  restartPointIndex: z.number().int().min(0).optional(),
+  /** The parent's point: a regular point's index (≥ 0), or −1 − k for its special point k (the storage rule). */
+  restartPointIndex: z.number().int().optional(),
 })
 export type RunCreatePayload = z.input<typeof runCreateSchema>
 

@@ -21,6 +21,7 @@ describe('project archives in the browser', () => {
   it('downloads, imports, offers the members as invitations, and shows a refusal by name', async () => {
     const owner = await signInAs(ctx.server.url, 'owner')
     const project = ((await owner.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>).find(p => p.name === 'Genus-three torus gluings')!
+    const seededRuns = ((await owner.json('GET', `/api/projects/${project.id}/runs`)).body as unknown[]).length // the demo seed's
     await fillProject(owner, project.id)
 
     const page = await ctx.browser.newPage()
@@ -34,7 +35,7 @@ describe('project archives in the browser', () => {
     await screenshot(page, 'archive-1-downloaded')
     expect(download.suggestedFilename()).toMatch(/^wingfold-project-\d+-Genus-three-torus-gluings\.zip$/)
     const texts = archiveTexts(readFileSync(file))
-    expect(JSON.parse(texts['manifest.json']!).counts.runs).toBe(1)
+    expect(JSON.parse(texts['manifest.json']!).counts.runs).toBe(seededRuns + 1)
 
     await ctx.browser.context.clearCookies()
     await signInWithForm(page, ctx.server.url, 'editor')
@@ -43,7 +44,7 @@ describe('project archives in the browser', () => {
     await page.click('[data-testid=archive-import-button]')
     await page.waitForSelector('[data-testid=archive-import-result]')
     const summary = await page.textContent('[data-testid=archive-import-result]')
-    expect(summary).toContain('1 verified again')
+    expect(summary).toContain(`${seededRuns + 1} verified again`)
     expect(summary).toContain('Results are numerical evidence, not proofs.')
     const row = page.locator('[data-testid=archive-invites] tr', { hasText: 'Rafi Okonkwe' })
     await row.locator('input').fill('rafi.again@example.org')
@@ -56,10 +57,12 @@ describe('project archives in the browser', () => {
     const invitations = (await editor.json('GET', `/api/projects/${imported[0]!.id}/invitations`)).body as Array<{ email: string, role: string }>
     expect(invitations.map(i => `${i.email}:${i.role}`)).toEqual(['rafi.again@example.org:viewer'])
 
+    const addedRun = texts['tables/runs.ndjson']!.trim().split('\n').map(l => JSON.parse(l) as { id: number, name: string }).find(r => r.name === 'shear to the collapse 1')!
     const lines = texts['tables/run_points.ndjson']!.trim().split('\n')
-    const point = JSON.parse(lines[4]!)
+    const k = lines.findIndex(l => JSON.parse(l).run_id === addedRun.id && JSON.parse(l).index === 4)
+    const point = JSON.parse(lines[k]!)
     point.lambda += 0.01
-    lines[4] = JSON.stringify(point)
+    lines[k] = JSON.stringify(point)
     const forged = join(work, 'forged.zip')
     writeFileSync(forged, rezip({ ...texts, 'tables/run_points.ndjson': `${lines.join('\n')}\n` }))
     await gotoHydrated(page, `${ctx.server.url}/projects`)

@@ -95,7 +95,7 @@ describe('families in the browser', () => {
     await expect.poll(() => page.textContent('[data-testid=inspector-title]')).toContain(`point ${middle}`)
     await page.waitForSelector('[data-testid=point-inspector] [data-testid=pattern-preview] svg')
     await screenshot(page, 'family-inspector')
-    // discussion of the collapse (comments on special points, stored as −1 − k)
+    // discussion of the collapse (a comment on special point k is stored at point index −1 − k)
     await page.locator('[data-testid=special-points] button', { hasText: 'Comment' }).first().click()
     const thread = page.locator('[data-testid=special-point-comments] [data-testid=comment-thread]')
     await thread.locator('textarea').fill('Collapse lands on the **120°** corner, as expected.')
@@ -152,12 +152,19 @@ describe('families in the browser', () => {
     const page = await ctx.browser.newPage()
     await ctx.browser.context.clearCookies()
     await signInWithForm(page, ctx.server.url, 'editor')
+    // count the batch uploads on the wire, so the test can wait until none is left after the kill
+    let uploading = 0
+    const isUpload = (r: { url: () => string, method: () => string }) => r.method() === 'POST' && /\/api\/runs\/\d+\/points$/.test(r.url())
+    page.on('request', (r) => { if (isUpload(r)) uploading++ })
+    page.on('requestfinished', (r) => { if (isUpload(r)) uploading-- })
+    page.on('requestfailed', (r) => { if (isUpload(r)) uploading-- })
     // tiny steps: thousands of points, so the run is still going when the worker is killed
     const runId = await startShear(page, torusId, fermatGraph, 'killed mid-way', { stepMax: '0.0002', maxPoints: '5000' })
     await page.waitForFunction(() => Number(document.querySelector('[data-testid=live-saved]')?.textContent) >= 30, null, { timeout: 60_000 })
     await page.evaluate(() => (window as unknown as { __wingfoldContinuation: { terminate: () => void } }).__wingfoldContinuation.terminate())
-    // let a save that was already on the wire land, then compare the page's count with the server's
-    await page.waitForTimeout(1500)
+    // wait until a save that was already on the wire has landed and the page has counted it
+    await expect.poll(() => uploading, { timeout: 30_000 }).toBe(0)
+    await expect.poll(async () => Number(await page.textContent('[data-testid=live-saved]')) === (await editor.json('GET', `/api/runs/${runId}`)).body.pointCount, { timeout: 30_000 }).toBe(true)
     const saved = Number(await page.textContent('[data-testid=live-saved]'))
     // the page finishes the run as failed (a run never stays "running" when its worker dies)
     await expect.poll(async () => (await editor.json('GET', `/api/runs/${runId}`)).body.status, { timeout: 30_000 }).toBe('failed')

@@ -8,7 +8,7 @@ import { availableParallelism, loadavg } from 'node:os'
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { useServerAndBrowser } from '../support/fixtures'
-import { screenshot, signInWithForm } from '../support/browser'
+import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
 import { findPatternExample } from '../../shared/examples'
 import { signInAs } from '../support/http'
 import { computeBatches, graphIdByName, projectIdByName } from '../server/runs-helpers'
@@ -33,6 +33,21 @@ async function compute(page: Page, workers: number): Promise<{ text: string, wal
   const text = (await page.textContent('[data-testid=map-timing]'))!
   const longTasks = await page.evaluate(t => (window as unknown as { __longTasks: Array<[number, number]> }).__longTasks.filter(([s]) => s >= t).map(([, d]) => d), t0)
   return { text, wallS: Number(/in ([\d.]+) s/.exec(text)![1]), longTasks }
+}
+
+/**
+ * The colour the heat map's canvas shows at (x, y) of a map whose axes run over [x0, x1] × [y0, y1]
+ * (cell centres ± half a step): the plot area is the grid of Heatmap.vue (left 60, right 90,
+ * top 56, bottom 50 CSS pixels), the canvas is scaled by its device pixel ratio.
+ */
+async function heatmapColour(page: Page, x: number, y: number, win: [number, number, number, number]): Promise<[number, number, number]> {
+  return page.evaluate(([x, y, x0, x1, y0, y1]) => {
+    const c = document.querySelector('[data-testid=map-heatmap] canvas') as HTMLCanvasElement
+    const r = c.getBoundingClientRect()
+    const px = 60 + ((x! - x0!) / (x1! - x0!)) * (r.width - 150), py = 56 + ((y1! - y!) / (y1! - y0!)) * (r.height - 106)
+    const d = c.getContext('2d')!.getImageData(Math.round(px * c.width / r.width), Math.round(py * c.height / r.height), 1, 1).data
+    return [d[0]!, d[1]!, d[2]!] as [number, number, number]
+  }, [x, y, ...win])
 }
 
 describe('moduli map in the browser', () => {
@@ -117,6 +132,25 @@ describe('curves and cancel', () => {
     expect(await page.textContent('[data-testid=map-saved]')).toContain('verified')
     await screenshot(page, 'map-fermat-curves')
 
+    // the two shades: on the Fermat pair at Im τ = 0.1, τ = −0.9 + 0.1i is unreachable from the seed
+    // (no straight run from a balanced cell gets there) and τ = 0.5 + 0.1i lies past a collapse (the
+    // angle at τ is 2·atan(5) ≈ 157° > 120°: Fermat–Torricelli, derived); the map's own cell states say so
+    for (const [k, v] of Object.entries({ 'x-min': '-0.9', 'x-max': '1.9', 'x-count': '15', 'y-min': '0.1', 'y-max': '0.5', 'y-count': '5' })) await page.fill(`[data-testid=map-${k}]`, v)
+    await page.fill('[data-testid=map-workers]', '2')
+    await page.click('[data-testid=map-compute]')
+    await expect.poll(async () => (await page.textContent('[data-testid=map-timing]').catch(() => '')) ?? '', { timeout: 120_000, interval: 100 }).toMatch(/5 of 5 rows/)
+    const win: [number, number, number, number] = [-1.0, 2.0, 0.05, 0.55]
+    // sample a little off the cell centre, away from crossing markers drawn on the cell borders
+    const UNREACHABLE = [0xec, 0xe8, 0xdf], DEGENERATE = [0x9b, 0x93, 0x84] // Heatmap.vue's two stones
+    const near = (a: number[], b: number[]) => a.every((v, i) => Math.abs(v - b[i]!) <= 3)
+    await expect.poll(async () => near(await heatmapColour(page, -0.9 + 0.04, 0.1 + 0.015, win), UNREACHABLE), { timeout: 20_000, interval: 100 }).toBe(true)
+    expect(near(await heatmapColour(page, 0.5 + 0.04, 0.1 + 0.015, win), DEGENERATE)).toBe(true)
+    // a solved cell of the same map is neither
+    const solved = await heatmapColour(page, 0.1 + 0.04, 0.3 + 0.015, win)
+    expect(near(solved, UNREACHABLE) || near(solved, DEGENERATE)).toBe(false)
+    await page.mouse.move(0, 0)
+    await screenshot(page, 'map-two-shades')
+
     // cancel: a 61-row map stopped early keeps the rows it finished
     await page.selectOption('[data-testid=map-graph]', { label: pattern.title })
     for (const [k, v] of Object.entries({ 'x-min': '-0.5', 'x-max': '0.5', 'x-count': '61', 'y-min': '0.8', 'y-max': '2', 'y-count': '61' })) await page.fill(`[data-testid=map-${k}]`, v)
@@ -128,5 +162,34 @@ describe('curves and cancel', () => {
     const done = Number(/(\d+) of 61 rows/.exec((await page.textContent('[data-testid=map-timing]'))!)![1])
     expect(done).toBeGreaterThan(0)
     expect(done).toBeLessThan(61)
+  })
+})
+
+describe('a collapsed run in the special-points table', () => {
+  it('shows where the run stopped beside where the collapse is', { timeout: 120_000 }, async () => {
+    // the demo Fermat pair (ω1 = (2, 0), ω2 = (1, 2)) sheared by s: τ = (0.5 + s) + i, and the edge to
+    // the origin reaches length 0 where the corner angle at 0 is 120°, Re τ = −1/√3 (Fermat–Torricelli,
+    // derived): s = −1/2 − 1/√3; the run stops at the collapse tolerance before it
+    const api = await signInAs(ctx.server.url, 'owner')
+    const fermat = findPatternExample('fermat-pair')!
+    const projectId = await projectIdByName(api, 'Genus-three torus gluings')
+    const settings = { path: { kind: 'shear' as const }, to: -2 }
+    const run = await api.json('POST', `/api/projects/${projectId}/runs`, { graphId: await graphIdByName(api, projectId, fermat.title), name: 'shear to the collapse', settings })
+    const batches = computeBatches(fermat.document, settings)
+    for (const b of batches) expect((await api.json('POST', `/api/runs/${run.body.id}/points`, { points: b.points, specialPoints: b.specialPoints })).status).toBe(200)
+    const collapse = batches.flatMap(b => b.specialPoints).find(s => s.kind === 'collapse')!
+
+    await ctx.browser.context.clearCookies()
+    const page = await ctx.browser.newPage({ width: 1500, height: 1000 })
+    await signInWithForm(page, ctx.server.url, 'owner')
+    await gotoHydrated(page, `${ctx.server.url}/projects/${projectId}/runs/${run.body.id}`)
+    const row = page.locator('[data-testid=special-points] tr[data-kind=collapse]')
+    await row.waitFor()
+    const exact = -0.5 - 1 / Math.sqrt(3)
+    expect(Number(await row.locator('[data-testid=special-lambda]').innerText())).toBeCloseTo(exact, 6)
+    const stopped = Number(await row.locator('[data-testid=special-stopped-at]').innerText())
+    expect(stopped).toBeCloseTo(collapse.stoppedAt!.lambda, 6)
+    expect(stopped).toBeGreaterThan(exact)
+    await screenshot(page, 'run-stopped-at')
   })
 })

@@ -70,7 +70,7 @@ describe('pattern workbench', () => {
     await page.waitForSelector('[data-testid=verdict-balance][data-ok=false]')
     expect(await page.getAttribute('[data-testid=verdict-degrees]', 'data-ok')).toBe('true')
     expect(await page.getAttribute('[data-testid=verdict-orientable]', 'data-ok')).toBe('true')
-    expect(await page.textContent('[data-testid=topology]')).toContain('genus 3') // E − V + 1 = 4 − 2 + 1 (docs/theory.md §3)
+    expect(await page.textContent('[data-testid=topology]')).toContain('genus 3') // E − V + 1 = 4 − 2 + 1 (H. Chen, M. Traizet, Gluing Karcher–Scherk saddle towers I: Triply periodic minimal surfaces, arXiv 2103.15676, 2021, Thm 6.7)
     await page.click('[data-testid=verdict-balance] button')
     expect(await page.locator('[data-testid=arrow]').count()).toBe(2)
     await screenshot(page, 'workbench-unbalanced')

@@ -23,12 +23,18 @@ let owner: ApiClient, importer: ApiClient
 let torusId: number
 let archive: Uint8Array
 let texts: Record<string, string>
+/** Runs and maps the demo seed put into the project before this file added its own. */
+let seeded: { runs: number, maps: number }
 
 beforeAll(async () => {
   fresh = await startServer()
   owner = await signInAs(ctx.server.url, 'owner')
   importer = await signUp(fresh.url, 'Marit Elsholm', 'marit@elsewhere.example')
   torusId = await projectIdByName(owner, 'Genus-three torus gluings')
+  seeded = {
+    runs: ((await owner.json('GET', `/api/projects/${torusId}/runs`)).body as unknown[]).length,
+    maps: ((await owner.json('GET', `/api/projects/${torusId}/maps`)).body as unknown[]).length,
+  }
   await fillProject(owner, torusId)
   const r = await exportArchive(owner, torusId)
   expect(r.status).toBe(200)
@@ -75,8 +81,8 @@ describe('project archive export', () => {
     expect(manifest.schema.version).toBeGreaterThanOrEqual(3) // three migrations on this branch: 0000_init, 0001_…, 0002_maps
     expect(Object.keys(texts).sort()).toEqual([...manifest.files.map((f: { path: string }) => f.path), 'manifest.json'].sort())
     for (const f of manifest.files) expect(createHash('sha256').update(texts[f.path]!).digest('hex')).toBe(f.sha256)
-    expect(manifest.counts.runs).toBe(1)
-    expect(manifest.counts.maps).toBe(1)
+    expect(manifest.counts.runs).toBe(seeded.runs + 1)
+    expect(manifest.counts.maps).toBe(seeded.maps + 1)
     expect(manifest.counts.graph_versions).toBeGreaterThan(manifest.counts.graphs) // the extra saved version
     const people = JSON.parse(texts['people.json']!)
     expect(people.map((p: { name: string, role: string }) => `${p.name}:${p.role}`).sort()).toEqual(['Neve Ashdown:editor', 'Rafi Okonkwe:viewer', 'Tomas Quillon:owner'])
@@ -122,17 +128,18 @@ describe('project archive import', () => {
   it('round trip: a fresh server imports everything equal and verifies every run and map again', async () => {
     const r = await importArchive(importer, archive)
     expect(r.status).toBe(201)
-    expect(r.body.runs).toEqual({ verified: 1, rejected: 0, pending: 0 })
-    expect(r.body.maps).toEqual({ verified: 1, rejected: 0, pending: 0 })
+    expect(r.body.runs).toEqual({ verified: seeded.runs + 1, rejected: 0, pending: 0 })
+    expect(r.body.maps).toEqual({ verified: seeded.maps + 1, rejected: 0, pending: 0 })
     expect(r.body.members.map((m: { name: string, role: string }) => `${m.name}:${m.role}`).sort()).toEqual(['Neve Ashdown:editor', 'Rafi Okonkwe:viewer', 'Tomas Quillon:owner'])
     const before = await projectContent(owner, torusId)
     const after = await projectContent(importer, r.body.project.id)
     expect(after.patterns).toEqual(before.patterns)
     expect(after.runs).toEqual(before.runs)
     expect(after.maps).toEqual(before.maps)
-    expect(after.runs[0]!.points.length).toBeGreaterThan(10)
-    expect(after.runs[0]!.special.length).toBeGreaterThan(0)
-    expect(after.runs[0]!.comments).toHaveLength(2)
+    const added = after.runs.find(x => x.name === 'shear to the collapse 1')!
+    expect(added.points.length).toBeGreaterThan(10)
+    expect(added.special.length).toBeGreaterThan(0)
+    expect(added.comments).toHaveLength(2)
     const run = (await importer.json('GET', `/api/projects/${r.body.project.id}/runs`)).body[0]
     expect(run.verificationReason).toMatch(/^Re-verified on import/)
     // the importer owns it; nobody else was added (members come back as names to invite)
@@ -152,8 +159,10 @@ describe('project archive import', () => {
   }
 
   it('refuses an archive with one moved point (hashes recomputed) and names the run and the point', async () => {
+    const runRows = texts['tables/runs.ndjson']!.trim().split('\n').map(l => JSON.parse(l) as { id: number, name: string })
+    const runId = runRows.find(x => x.name === 'shear to the collapse 1')!.id
     const lines = texts['tables/run_points.ndjson']!.trim().split('\n')
-    const k = lines.findIndex(l => JSON.parse(l).index === 5)
+    const k = lines.findIndex(l => JSON.parse(l).index === 5 && JSON.parse(l).run_id === runId)
     const row = JSON.parse(lines[k]!)
     const state = JSON.parse(row.state)
     state.u[0] += 1e-3

@@ -11,7 +11,7 @@ let projectId: number
 /**
  * Two degree-4 towers at (0,0) and (½,½) in the unit square torus joined by the four diagonals:
  * the unit edge vectors are (±1,±1)/√2 and sum to zero at both towers, so the drawing is balanced
- * (closed form, from memory); the glued surface has genus E − V + 1 = 3 (docs/theory.md §3).
+ * (closed form, from memory); the glued surface has genus E − V + 1 = 3 (H. Chen, M. Traizet, Gluing Karcher–Scherk saddle towers I: Triply periodic minimal surfaces, arXiv 2103.15676, 2021, Thm 6.7).
  */
 function diagonalPair(b: [number, number] = [0.5, 0.5]) {
   return {

@@ -1,12 +1,13 @@
 /**
  * Comments on runs and on points (one level of answers, safe Markdown, edit/delete rules,
  * notices to the run's author with opt-out) and the paginated, filtered activity log.
- * The run is written straight into the test database (the run routes belong to another layer).
+ * The run is started through the run route, as the run page does.
  */
 import { beforeAll, describe, expect, it } from 'vitest'
 import { useTestServer } from '../support/fixtures'
 import { signInAs, signUp, type ApiClient } from '../support/http'
-import { lastMailId, mailsTo, sqlOnServer, waitForMail } from './team-support'
+import { lastMailId, mailsTo, waitForMail } from './team-support'
+import { graphIdByName } from './runs-helpers'
 
 const ctx = useTestServer()
 let owner: ApiClient, editor: ApiClient, viewer: ApiClient, admin: ApiClient, stranger: ApiClient
@@ -17,12 +18,11 @@ beforeAll(async () => {
   ;[owner, editor, viewer, admin] = await Promise.all([signInAs(url, 'owner'), signInAs(url, 'editor'), signInAs(url, 'viewer'), signInAs(url, 'admin')])
   stranger = await signUp(ctx.server.url, 'Stranger', 'stranger@example.org')
   projectId = ((await owner.json('GET', '/api/projects')).body as Array<{ id: number, name: string }>).find(p => p.name === 'Genus-three torus gluings')!.id
-  const [version] = await sqlOnServer(ctx.server, 'SELECT gv.id FROM graph_versions gv JOIN graphs g ON g.id = gv.graph_id WHERE g.project_id = ? LIMIT 1', [projectId])
-  const [author] = await sqlOnServer(ctx.server, 'SELECT id FROM users WHERE email = ?', ['editor@lanternbay.example'])
-  const [run] = await sqlOnServer(ctx.server,
-    `INSERT INTO runs (project_id, graph_version_id, name, path_kind, settings, app_version, author_id) VALUES (?, ?, 'shear sweep', 'shear', '{}', '0.1.0', ?) RETURNING id`,
-    [projectId, version!.id as number, author!.id as number])
-  runId = run!.id as number
+  // the editor starts a run (valid settings, no points yet): the editor is its author
+  const graphId = await graphIdByName(editor, projectId, 'Fermat pair (rough drawing)')
+  const run = await editor.json('POST', `/api/projects/${projectId}/runs`, { graphId, name: 'shear sweep', settings: { path: { kind: 'shear' }, to: -2 } })
+  expect(run.status).toBe(201)
+  runId = run.body.id as number
 })
 
 describe('comments', () => {
@@ -71,8 +71,8 @@ describe('comments', () => {
     expect((await editor.json('PATCH', '/api/account/notifications', { notifyOptOut: true })).body).toEqual({ notifyOptOut: true })
     const before = (await mailsTo(admin, 'editor@lanternbay.example')).length
     expect((await viewer.json('POST', `/api/runs/${runId}/comments`, { body: 'quietly' })).status).toBe(201)
-    // give a notice time to appear if one were (wrongly) queued: the comment itself is synchronous
-    await new Promise(ok => setTimeout(ok, 500))
+    // no waiting needed: a notice is written to the outbox before the comment route answers
+    // (noticeComment → enqueueMail inserts the row, only the delivery runs in the background)
     expect((await mailsTo(admin, 'editor@lanternbay.example')).length).toBe(before)
   })
 })

@@ -21,7 +21,8 @@ export function soupGenus(tri: Float32Array, periods: number[][]): number {
   const corner = (t: number, i: number): [string, number[]] => {
     const x = [tri[9 * t + 3 * i]!, tri[9 * t + 3 * i + 1]!, tri[9 * t + 3 * i + 2]!]
     const f = B.mmul(Matrix.columnVector(x)).to1DArray()
-    const frac = f.map(c => c - Math.floor(c))
+    // c − floor(c) rounds to exactly 1 for c = −1e-17: such a point belongs to cell 0.
+    const frac = f.map(c => { const r = c - Math.floor(c); return r >= 1 ? 0 : r })
     const cell = frac.map(c => Math.floor(c * G))
     for (const dx of [-1, 0, 1]) for (const dy of [-1, 0, 1]) for (const dz of [-1, 0, 1]) {
       for (const p of grid.get([wrap(cell[0]! + dx), wrap(cell[1]! + dy), wrap(cell[2]! + dz)].join(',')) ?? []) {

@@ -5,8 +5,8 @@ import type { DiagramPoint, DiagramSpecial } from './axes'
 
 /** A regular point with the server's residual when known. */
 export type ViewPoint = DiagramPoint & { residual?: number, tangent?: number[], nextStepSize?: number }
-/** A special point with its kernel and tangent. */
-export type ViewSpecial = DiagramSpecial & { kernel?: number[], tangent?: number[] }
+/** A special point with its kernel and tangent; `stoppedAt`: where a run located past its stop (a collapse at length 0) actually stopped. */
+export type ViewSpecial = DiagramSpecial & { kernel?: number[], tangent?: number[], stoppedAt?: { lambda: number } }
 
 /** A stored regular point. */
 export function storedToView(p: StoredRunPoint): ViewPoint {
@@ -16,8 +16,8 @@ export function storedToView(p: StoredRunPoint): ViewPoint {
 
 /** A stored special point. */
 export function storedSpecialToView(p: StoredRunPoint): ViewSpecial {
-  const s = p.state as { u: number[], label?: string, afterPoint?: number, precision?: number, located?: boolean, kernel?: number[], tangent?: number[] }
-  return { index: p.index, kind: p.specialKind ?? 'special', label: s.label ?? '', lambda: p.lambda, u: s.u, afterPoint: s.afterPoint ?? 0, precision: s.precision, located: s.located, kernel: s.kernel, tangent: s.tangent }
+  const s = p.state as { u: number[], label?: string, afterPoint?: number, precision?: number, located?: boolean, kernel?: number[], tangent?: number[], stoppedAt?: { lambda: number } }
+  return { index: p.index, kind: p.specialKind ?? 'special', label: s.label ?? '', lambda: p.lambda, u: s.u, afterPoint: s.afterPoint ?? 0, precision: s.precision, located: s.located, kernel: s.kernel, tangent: s.tangent, ...(s.stoppedAt ? { stoppedAt: s.stoppedAt } : {}) }
 }
 
 /** A live engine point. */
@@ -27,7 +27,7 @@ export function liveToView(p: ContinuationPoint): ViewPoint {
 
 /** A live special point. */
 export function liveSpecialToView(s: SpecialPoint): ViewSpecial {
-  return { index: s.index, kind: s.kind, label: s.label, lambda: s.lambda, u: s.u, afterPoint: s.afterPoint, precision: s.precision, located: s.located, kernel: s.kernel, tangent: s.tangent }
+  return { index: s.index, kind: s.kind, label: s.label, lambda: s.lambda, u: s.u, afterPoint: s.afterPoint, precision: s.precision, located: s.located, kernel: s.kernel, tangent: s.tangent, ...(s.stoppedAt ? { stoppedAt: s.stoppedAt } : {}) }
 }
 
 /** Rows of the special points table for one run. */
@@ -36,6 +36,7 @@ export function specialRows(run: number, special: readonly ViewSpecial[], points
     run, runName, index: s.index, kind: s.kind, label: s.label, lambda: s.lambda,
     sigmaMin: points.find(p => p.index === s.afterPoint)?.sigmaMin ?? null,
     precision: s.precision ?? null, located: s.located ?? false, afterPoint: s.afterPoint,
+    stoppedAt: s.stoppedAt?.lambda ?? null,
   }))
 }
 

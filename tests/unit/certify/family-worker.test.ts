@@ -5,6 +5,9 @@
  * sheared triangle (0, ω1, ω2(λ)) computed from the closed form X(13) (C. Kimberling,
  * Encyclopedia of Triangle Centers). A claim is re-proven by `verifyCertificateClaims`; a claim
  * with the existence radius shrunk far below what can be proven is refused.
+ * `drawing`, as the workbench calls it: Meeks' pattern [H. Chen, M. Traizet, arXiv 2103.15676,
+ * 2021, Ex. 7.1] on ω1 = (1, 0), ω2 = (0.3, 1.3) — phase Jacobian 2 cos b: a = 2π/3, b = π/3 is
+ * phase-rigid (T10, T11 proven), a = π/3, b = π/2 is not (T11 fails).
  */
 import { MessageChannel } from 'node:worker_threads'
 import { expose, proxy, wrap, type Remote } from 'comlink'
@@ -18,6 +21,7 @@ import { parseFamilySettings } from '../../../shared/types/family'
 import { createCertifyWorkerApi, type CertifyWorkerApi } from '../../../workers/certify.worker'
 import { fermatPair } from '../families/fixtures'
 import { isogonicCentre } from '../pattern/triangle-centres'
+import { meeks } from '../pattern/published-patterns'
 
 let channel: MessageChannel | undefined
 function connect(): Remote<CertifyWorkerApi> {
@@ -67,5 +71,23 @@ describe('certificates of a family through the worker', () => {
     expect(v.refused.map(r => r.index)).toEqual([claims[0]!.index])
     // a claim that the uniqueness ball is larger than can be proven (beyond the collapse scale) fails too
     expect(verifyCertificateClaims(doc, settings, points, [{ ...claims[1]!, rMax: 10 }]).accepted).toBe(false)
+  })
+})
+
+const statusOf = (items: { id: string, status: string }[], id: string) => items.find(i => i.id === id)?.status
+
+describe('certificate worker: one drawing with its certified checklist', () => {
+  it('Meeks a = 2π/3, b = π/3: both parts certified, T6, T7, T10, T11 proven', async () => {
+    const r = await connect().drawing(meeks([1, 0], [0.3, 1.3], 2 * Math.PI / 3, Math.PI / 3))
+    expect(r.certificate.phase?.certified).toBe(true)
+    expect(r.phase).toMatch(/^certified \(radius/)
+    for (const id of ['T6', 'T7', 'T10', 'T11']) expect(statusOf(r.existence.items, id)).toBe('proven-interval')
+    expect(r.existence.proven).toEqual({ horizontal: true, phase: true })
+  })
+  it('Meeks a = π/3, b = π/2: the phase part is not certified (not rigid), T11 fails', async () => {
+    const r = await connect().drawing(meeks([1, 0], [0.3, 1.3], Math.PI / 3, Math.PI / 2))
+    expect(r.phase).toMatch(/^not certified: not rigid/)
+    expect(statusOf(r.existence.items, 'T11')).toBe('fails')
+    expect(r.existence.proven).toEqual({ horizontal: true, phase: false })
   })
 })

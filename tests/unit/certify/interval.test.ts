@@ -101,6 +101,8 @@ describe('interval primitives contain the decimal.js value (seeded random operan
       }
     }
   })
+  // S. M. Rump, P. Zimmermann, S. Boldo, G. Melquiond, "Computing predecessor and successor in
+  // rounding to nearest", BIT Numerical Mathematics 49, 2009 (from memory)
   it('succ and pred move outward by at least one double (Rump et al. 2009)', () => {
     const rnd = seeded(5)
     for (let k = 0; k < 2000; k++) {

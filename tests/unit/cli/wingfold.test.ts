@@ -62,7 +62,8 @@ describe('wingfold balance', () => {
     expect(r.code).toBe(0)
     const doc = parsePatternDocument(JSON.parse(await readFile(out, 'utf8')))
     const [x, y] = doc.vertices[1]!.position
-    // Fermat point of (0, ω1, ω2) = (0, (2,0), (1,2)): (1, 1/√3) (Fermat–Torricelli, first isogonic centre X(13), C. Kimberling)
+    // Fermat point X(13) (C. Kimberling, Encyclopedia of Triangle Centers) of (0, (2,0), (1,2)): (1, 1/√3)
+    // (derived: the triangle is isosceles about x = 1, and its base subtends 120° at height 1/tan 60°)
     expect(Math.hypot(x - 1, y - 1 / Math.sqrt(3))).toBeLessThan(1e-12)
     const check = await run('check', out, '--json')
     expect(JSON.parse(check.stdout).verdicts.balance.ok).toBe(true)

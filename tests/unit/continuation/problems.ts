@@ -46,6 +46,44 @@ export function bratu(N: number): ContinuationProblem {
 }
 
 /**
+ * The fold of the discrete Bratu problem by shooting, independent of the continuation engine
+ * (derived): a solution is fixed by its first value a = u_1, since the scheme gives
+ * u_{i+1} = 2u_i − u_{i−1} − h²λ e^{u_i} from u_0 = 0; for each a, λ(a) is the root of
+ * u_{N+1}(a, λ) = 0 (bisection on λ ∈ [0, 4]: u_{N+1} = (N+1)a > 0 at λ = 0), and the fold is the
+ * largest λ(a) (golden-section search over a; the branch of solutions is one arc in a).
+ */
+export function bratuFoldByShooting(N: number): number {
+  const h2 = 1 / ((N + 1) * (N + 1))
+  const end = (a: number, l: number) => {
+    let prev = 0, cur = a
+    for (let i = 1; i <= N; i++) {
+      const next = 2 * cur - prev - h2 * l * Math.exp(cur)
+      prev = cur; cur = next
+      if (cur < -50) return -1 // fell through: the end value is negative
+    }
+    return cur
+  }
+  const lambdaOf = (a: number) => {
+    let lo = 0, hi = 4
+    for (let k = 0; k < 100 && hi - lo > 1e-15; k++) {
+      const mid = (lo + hi) / 2
+      if (end(a, mid) > 0) lo = mid; else hi = mid
+    }
+    return (lo + hi) / 2
+  }
+  // the continuous fold has u'(0) ≈ 4, so a = u_1 ≈ 4h: search a/h in [0.5, 12]
+  const h = 1 / (N + 1)
+  let x0 = 0.5 * h, x1 = 12 * h
+  const g = (Math.sqrt(5) - 1) / 2
+  let c = x1 - g * (x1 - x0), d = x0 + g * (x1 - x0), fc = lambdaOf(c), fd = lambdaOf(d)
+  for (let k = 0; k < 80; k++) {
+    if (fc > fd) { x1 = d; d = c; fd = fc; c = x1 - g * (x1 - x0); fc = lambdaOf(c) }
+    else { x0 = c; c = d; fc = fd; d = x0 + g * (x1 - x0); fd = lambdaOf(d) }
+  }
+  return Math.max(fc, fd)
+}
+
+/**
  * Ring of m identical phase oscillators with sine coupling; the closing edge (m−1 → 0) carries the
  * period phase λ = α. Unknowns ψ_1..ψ_{m−1} (ψ_0 = 0 pinned), equations G(v) = Σ sin φ_h for
  * v = 1..m−1 (G(0) is redundant). Twisted state ψ_j = jα/m: every phase difference is α/m.

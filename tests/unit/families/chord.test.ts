@@ -6,13 +6,13 @@ import { describe, expect, it } from 'vitest'
 import { runContinuation } from '../../../shared/continuation'
 import { resolveContinuationOptions } from '../../../shared/continuation/options'
 import { FamilyRunner } from '../../../shared/families'
-import { bratu } from '../continuation/problems'
+import { bratu, bratuFoldByShooting } from '../continuation/problems'
 import { ring } from './fixtures'
 
 describe('chord Newton', () => {
-  it('Bratu N = 100: the same fold as full Newton, at the discrete reference 3.5136515', () => {
-    // discrete fold value for N = 100, from memory (R. Buckmire and the Bratu/Gelfand literature)
-    const ref = 3.5136515
+  it('Bratu N = 100: the same fold as full Newton, where shooting on the same scheme puts it', () => {
+    // discrete fold of u'' + λ eᵘ = 0 (G. Bratu, 1914) by shooting, independent of the engine (derived)
+    const ref = bratuFoldByShooting(100)
     const opts = { maxStep: 2, initialStep: 0.1, stopAtSpecialPoint: true, maxPoints: 400 }
     const fold = (chordNewton: boolean) => {
       const r = runContinuation(bratu(100), { u: new Array(100).fill(0), lambda: 0 }, { ...opts, chordNewton, fastIterations: chordNewton ? 6 : 3 })
@@ -24,6 +24,7 @@ describe('chord Newton', () => {
     expect(Math.abs(chord.f.lambda - full.f.lambda)).toBeLessThan(1e-9)
   })
 
+  // twisted ring state φ = α1/5: singular at α1/5 = π/2 (D. A. Wiley, S. H. Strogatz, M. Girvan, "The size of the sync basin", Chaos 16, 015103, 2006)
   it('ring of 5 in α1: rigidity loss at 5π/2 (Wiley–Strogatz–Girvan 2006) with chord Newton', () => {
     const exact = (5 * Math.PI) / 2
     const r = new FamilyRunner(ring(5), { path: { kind: 'alpha1' }, to: exact + 2, step: { max: 0.3 } })

@@ -51,7 +51,7 @@ describe('Fermat pair sheared in a (ω1 = (1, 0), ω2 = (a, 1))', () => {
   }
 
   it('gives the Fermat length L² = (a² + b² + c²)/2 + 2√3·Area along the branch', () => {
-    // same source (classical formula for the minimal total length, docs/theory.md §8)
+    // classical formula for the minimal total length (Fermat–Torricelli, from memory)
     const r = runToEnd(fermatPair(0), { path: { kind: 'shear' }, to: 0.5 })
     let worst = 0
     for (const p of r.branch.points) {

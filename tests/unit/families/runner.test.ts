@@ -2,10 +2,14 @@
  * FamilyRunner: batches and progress, pause / resume / cancel, a step that throws, a refused
  * start, and the settings schema (defaults, invalid input, paths that do not fit the pattern).
  */
-import { describe, expect, it } from 'vitest'
+import { describe, expect, it, vi } from 'vitest'
 import { FamilyRunner, type FamilyBatch } from '../../../shared/families'
 import { FamilySettingsSchema, parseFamilySettings } from '../../../shared/types/family'
 import { fermatPair, planeBridge, ring } from './fixtures'
+import { evenRingOfFour } from '../../../server/db/demo-patterns'
+
+/** n turns of the event loop (zero-delay timers: no wall-clock wait). */
+const eventLoopTurns = async (n: number) => { for (let k = 0; k < n; k++) await new Promise(resolve => setTimeout(resolve, 0)) }
 
 const shear = { path: { kind: 'shear' as const }, to: 1.5, step: { max: 0.05 } }
 
@@ -44,15 +48,45 @@ describe('FamilyRunner', () => {
     const done = r.start((b) => {
       if (!paused && b.progress.points >= 4) { paused = true; r.pause() }
     }, { points: 1 })
-    await new Promise(resolve => setTimeout(resolve, 30))
+    // the runner yields one macrotask turn between batches: wait for the pause, then give it
+    // twenty turns, in which a running runner makes twenty batches of one point
+    await vi.waitUntil(() => r.result().status === 'paused')
     const whilePaused = r.result().branch.points.length
-    await new Promise(resolve => setTimeout(resolve, 30))
+    await eventLoopTurns(20)
     expect(r.result().branch.points.length).toBe(whilePaused)
     expect(r.result().status).toBe('paused')
     r.resume()
+    await eventLoopTurns(2)
+    expect(r.result().branch.points.length).toBeGreaterThan(whilePaused) // the same turns do move a running runner
     const res = await done
     expect(res.status).toBe('finished')
     expect(res.branch.points.map(p => p.lambda)).toEqual(ref.branch.points.map(p => p.lambda))
+  })
+
+  it('restarts at a branch point along its kernel onto the other branch (the run page\'s "Switch branch")', () => {
+    // Even ring of four (server/db/demo-patterns.ts): weight s on e0, e2, α1 = 4π/3. Derived:
+    // K_i sin φ_i = c round the ring; the even states (φ0 = φ2) meet the uneven ones
+    // (φ0 = π − φ2, φ1 = φ3 = (α1 − π)/2 = π/6, s sin φ0 = sin(π/6)) at s = 1/2, where F_u is singular.
+    const doc = evenRingOfFour()
+    const settings = { path: { kind: 'weight-scale' as const, edges: ['e0', 'e2'] }, to: 0.2, stop: { maxPoints: 30 } }
+    const parent = new FamilyRunner(doc, settings)
+    while (!parent.done) parent.step({ points: 1000, ms: 60_000 })
+    const bp = parent.result().branch.specialPoints.find(p => p.kind === 'branch point')!
+    expect(bp.lambda).toBeCloseTo(1 / 2, 8)
+    const k = Array.from(bp.kernel!), norm = Math.hypot(...k)
+    const child = new FamilyRunner(doc, settings, { u: bp.u, lambda: bp.lambda, tangent: k.map(x => x / norm) })
+    while (!child.done) child.step({ points: 1000, ms: 60_000 })
+    const r = child.result()
+    expect(r.status).toBe('finished')
+    expect(r.branch.points.length).toBeGreaterThan(10)
+    const wrap = (x: number) => Math.atan2(Math.sin(x), Math.cos(x))
+    for (const p of r.branch.points.slice(1)) {
+      const [p1, p2, p3] = Array.from(p.u) as [number, number, number]
+      expect(Math.abs(wrap(p2 - p1 - Math.PI / 6))).toBeLessThan(1e-8)
+      expect(Math.abs(wrap(4 * Math.PI / 3 - p3 - Math.PI / 6))).toBeLessThan(1e-8)
+      expect(Math.abs(wrap(p1 + (p3 - p2) - Math.PI))).toBeLessThan(1e-8)
+      expect(Math.abs(p.lambda * Math.sin(p1) - 1 / 2)).toBeLessThan(1e-8)
+    }
   })
 
   it('returns every point computed so far when cancelled', async () => {
@@ -80,7 +114,8 @@ describe('FamilyRunner', () => {
   })
 
   it('reports a refused start as a result', async () => {
-    // the twisted ring of 4 at α1 = 2π: weights cos(π/2) = 0, F_u = 0 (Wiley–Strogatz–Girvan 2006)
+    // the twisted ring of 4 at α1 = 2π: weights cos(π/2) = 0, F_u = 0
+    // (D. A. Wiley, S. H. Strogatz, M. Girvan, "The size of the sync basin", Chaos 16, 015103, 2006)
     const doc = ring(4)
     doc.phases = { alpha: [2 * Math.PI, 0], vertexPhases: { v0: 0, v1: Math.PI / 2, v2: Math.PI, v3: 1.5 * Math.PI } }
     const r = new FamilyRunner(doc, { path: { kind: 'alpha1' }, to: 7, balanceFirst: false })

@@ -14,6 +14,7 @@ import type { FamilySettingsInput } from '../../../shared/types/family'
 import { meeks, twoTowers } from '../pattern/published-patterns'
 import { wallAt } from '../../../app/utils/family/wall'
 import { parseFamilySettings } from '../../../shared/types/family'
+import { parsePatternDocument } from '../../../shared/types/pattern'
 
 // app/utils import the core through Nuxt's #shared alias; point it at the same files here
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
@@ -64,6 +65,56 @@ describe('walls along a lattice shear of Meeks [CT-I Ex. 7.1]', () => {
   it('trivial phases: no wall event (every structure is balanced)', () => {
     const r = runToEnd(meeks([1, 0], [-0.2, 1.3], 0, Math.PI), { path: { kind: 'shear' }, to: 0.5 })
     expect(r.branch.specialPoints.filter(s => s.kind === 'wall')).toHaveLength(0)
+  })
+})
+
+/**
+ * Honeycomb: two towers v, w and three edges v → w + k, k ∈ {(0,0), (1,0), (0,1)}. Balance puts v
+ * at the Fermat point of the triangle A = w, B = w + ω1, C = w + ω2 (unit vectors summing to 0),
+ * and the Fermat point is closest to the vertex of the largest angle, i.e. the one opposite the
+ * longest side: the shortest level, the only one with an equation (it joins v and w), is the edge
+ * to that vertex (derived). With ω1 = (1, 0), ω2 = (x, 0.8): |AB| = 1, |AC|² = x² + 0.64,
+ * |BC|² = (1 − x)² + 0.64. For x < 0.4 BC is longest (edge a shortest); at x = 0.4 |BC| = |AB|,
+ * edges a and c tie; for 0.4 < x < 0.6 AB is longest (edge c); at x = 0.6 |AC| = |AB|, edges c and
+ * b tie; for x > 0.6 AC is longest (edge b). At x = 0.5 edges a and b tie but stay above c: no
+ * wall. Sheared from x = 0.3 by s: walls at s = 0.1 (a/c) and s = 0.3 (c/b), derived.
+ */
+function honeycomb(): PatternDocument {
+  return parsePatternDocument({
+    format: 'wingfold-pattern', version: 1, name: 'honeycomb', space: 'torus',
+    lattice: { w1: [1, 0], w2: [0.3, 0.8] },
+    vertices: [{ id: 'v', position: [0.45, 0.3] }, { id: 'w', position: [0, 0] }],
+    edges: ([[0, 0], [1, 0], [0, 1]] as [number, number][]).map((shift, i) => ({ id: 'abc'[i]!, from: 'v', to: 'w', shift })),
+    phases: { alpha: [0.7, -0.4], vertexPhases: { v: 0, w: 1.1 } },
+  })
+}
+
+describe('every change of structure along a lattice path is a located wall', () => {
+  it('honeycomb under shear: two walls, a/c at s = 0.1 and c/b at s = 0.3 (derived), none at s = 0.2', () => {
+    const doc = honeycomb()
+    const r = runToEnd(doc, { path: { kind: 'shear' }, to: 0.4, stop: { locateTolerance: 1e-10 } })
+    const walls = r.branch.specialPoints.filter(s => s.kind === 'wall')
+    expect(walls.map(w => w.lambda)).toHaveLength(2)
+    expect(Math.abs(walls[0]!.lambda - 0.1)).toBeLessThan(1e-8)
+    expect(Math.abs(walls[1]!.lambda - 0.3)).toBeLessThan(1e-8)
+    expect(walls.every(w => w.located)).toBe(true)
+    const settings = parseFamilySettings({ path: { kind: 'shear' }, to: 0.4 })
+    const [d1, d2] = walls.map(w => wallAt(doc, settings, w.lambda, w.u))
+    const shortest = (d: ReturnType<typeof wallAt>['before']) => d.equations[0]!.terms.map(t => t.edge).sort()
+    expect([shortest(d1!.before), shortest(d1!.at), shortest(d1!.after)]).toEqual([['a'], ['a', 'c'], ['c']])
+    expect([shortest(d2!.before), shortest(d2!.at), shortest(d2!.after)]).toEqual([['c'], ['b', 'c'], ['b']])
+    // one term sin φ ≠ 0 per side: these phases solve none of the one-edge equations
+    expect(d1!.phaseBranchEnds && d2!.phaseBranchEnds).toBe(true)
+  })
+
+  it('Meeks ω2 = (s, 1.3) there and back through s = 0 [CT-I Ex. 7.1]: a wall each way, at s = 0', () => {
+    const doc = meeks([1, 0], [-0.2, 1.3], 2 * Math.PI / 3, Math.PI / 2)
+    // τ = ω2 (ω1 = (1, 0)): −0.2 + 1.3i → 0.2 + 1.3i → −0.2 + 1.3i; λ ∈ [0, 2], s = −0.2 + 0.4λ then 0.6 − 0.4λ
+    const r = runToEnd(doc, { path: { kind: 'tau-polyline', points: [[0.2, 1.3], [-0.2, 1.3]] }, to: 2, stop: { locateTolerance: 1e-10 } })
+    const walls = r.branch.specialPoints.filter(s => s.kind === 'wall')
+    expect(walls).toHaveLength(2)
+    expect(Math.abs(walls[0]!.lambda - 0.5)).toBeLessThan(1e-8)
+    expect(Math.abs(walls[1]!.lambda - 1.5)).toBeLessThan(1e-8)
   })
 })
 

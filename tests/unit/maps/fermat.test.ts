@@ -46,7 +46,7 @@ describe('τ map of the Fermat pair', () => {
   })
 
   it('reports total length per √area from the closed form L² = (a² + b² + c²)/2 + 2√3·Area', () => {
-    // closed form: classical Fermat–Torricelli minimal length (docs/theory.md §8)
+    // closed form: classical Fermat–Torricelli minimal length (from memory)
     for (const c of cells.filter(c => c.status === 'solved')) {
       const [a, b] = [c.x, c.y]
       const sides = [1, Math.hypot(a, b), Math.hypot(a - 1, b)]

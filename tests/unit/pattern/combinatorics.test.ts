@@ -5,7 +5,8 @@
  *   C. Thomassen, Graphs on Surfaces, 2001).
  * - Cut space dimension V − c, cycle space dimension E − V + c, orthogonal complements
  *   (R. Diestel, Graph Theory, §1.9), on seeded random multigraphs; ranks from ml-matrix's SVD.
- * - ker div / im curlᵀ has dimension 2g on a cellular embedding (docs/theory.md §2; Mohar–Thomassen).
+ * - ker div / im curlᵀ has dimension 2g on a cellular embedding (B. Mohar, C. Thomassen, Graphs on
+ *   Surfaces, 2001).
  */
 import { describe, expect, it } from 'vitest'
 import { Matrix, SingularValueDecomposition } from 'ml-matrix'

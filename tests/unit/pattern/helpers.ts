@@ -65,3 +65,14 @@ export function rows(flat: Float64Array, nCols: number): number[][] {
 export function reportDeviation(check: string, source: string, deviation: number): void {
   console.info(`[outside-check] ${check} | ${source} | deviation ${deviation.toExponential(2)}`)
 }
+
+/** A ring of n vertices r0..r(n−1) on the x axis of the unit square torus, every edge of length 1/n (the wrap edge shifted by ω1). */
+export function ringModel(n: number): PatternModel {
+  const positions: Record<string, [number, number]> = {}
+  const edges: [string, string, Shift][] = []
+  for (let i = 0; i < n; i++) {
+    positions[`r${i}`] = [i / n, 0]
+    edges.push([`r${i}`, `r${(i + 1) % n}`, [i === n - 1 ? 1 : 0, 0]])
+  }
+  return torusModel([1, 0], [0, 1], positions, edges)
+}

@@ -1,5 +1,5 @@
 /**
- * Orientability (docs/theory.md §2) and the outside check "every orientable torus pattern has genus
+ * Orientability (H. Chen, M. Traizet, Gluing Karcher–Scherk saddle towers I: Triply periodic minimal surfaces, arXiv 2103.15676, 2021, Def. 3.5: signs with s(ιh) = −s(h), s(σh) = −s(h)) and the outside check "every orientable torus pattern has genus
  * ≥ 3" (no genus-2 minimal surfaces in flat 3-tori: W. H. Meeks III, Indiana Univ. Math. J. 39,
  * 1990 — from memory). For valid gluing patterns (every degree even ≥ 4) E ≥ 2V, so the
  * predicted genus E − V + 1 ≥ V + 1 and genus 2 happens only for one vertex with two loops.

@@ -98,7 +98,8 @@ describe('phase report', () => {
 
   it('detects faces whose phase curl is not a multiple of 2π', () => {
     // one vertex, loops along ω1 and ω2, with a rotation that does not interleave them: the two
-    // faces do not close (Σk ≠ 0) and curl φ = (Σk)·α there (docs/theory.md §5)
+    // faces do not close (Σk ≠ 0) and curl φ = (Σk)·α there (derived: round a face the ψ terms of
+    // φ_h = ψ(v(ιh)) − ψ(v(h)) + k_h·α cancel and the shifts add up)
     const rotation = { a: ['e0:from', 'e0:to', 'e1:from', 'e1:to'] }
     const loops: [string, string, [number, number]][] = [['a', 'a', [1, 0]], ['a', 'a', [0, 1]]]
     const bad = analyzePattern(torusDoc([1, 0], [0, 1], { a: [0, 0] }, loops, { rotation, phases: { alpha: [0.3, 0.5] } }))

@@ -3,7 +3,7 @@
  * 50 bytes per triangle; common practice), OBJ (1-based faces), glTF 2.0 (Khronos, "glTF 2.0
  * Specification", 2021: accessor min/max, buffer length). The CLI writes an STL of a relaxed demo
  * torus pattern whose quotient genus, recomputed from the file alone by welding corners modulo
- * the periods and Euler's formula (Mohar–Thomassen 2001), is E − V + 1 (Chen–Traizet 2021,
+ * the periods and Euler's formula (B. Mohar, C. Thomassen, Graphs on Surfaces, 2001), is E − V + 1 (H. Chen, M. Traizet, Gluing Karcher–Scherk saddle towers I, arXiv 2103.15676, 2021,
  * Thm 6.7).
  */
 import { execFile } from 'node:child_process'

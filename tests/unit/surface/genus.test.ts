@@ -48,10 +48,9 @@ describe('schematic and relaxed meshes of the demo patterns', () => {
   it('there are demo torus patterns that pass their checks (the loop below is not empty)', async () => {
     expect(torusOk.length).toBeGreaterThanOrEqual(2)
     const seeded = (await demoGraphsFor(0)) as { summary: { ok: boolean } | null, document: { name: string } }[]
-    // the seeded torus project uses the same documents
-    const seededOk = seeded.filter(g => g.summary?.ok)
-    expect(seededOk.length).toBe(torusOk.length)
-    for (const g of seededOk) expect(torusOk.map(e => e.document.name)).toContain(g.document.name)
+    // the seeded torus project holds every passing example (and the demo group's own drafts)
+    const seededOk = seeded.filter(g => g.summary?.ok).map(g => g.document.name)
+    for (const e of torusOk) expect(seededOk).toContain(e.document.name)
   })
   for (const ex of torusOk) {
     it(`${ex.slug}: relaxed quotient genus = E − V + 1, closed, orientable, curvature lowered`, () => {
@@ -61,7 +60,7 @@ describe('schematic and relaxed meshes of the demo patterns', () => {
       expect(s.predictedGenus).toBe(predicted)
       const before = meanCurvature(s.mesh).mean
       const r = relaxMesh(s.mesh, { maxIterations: 40 })
-      // The schematic's towers are bent Scherk towers: relaxing must lower the mean |H| clearly.
+      // The schematic is not minimal where the sheets meet the towers: relaxing must lower the mean |H| clearly.
       expect(r.meanH).toBeLessThan(before / 5)
       expect(meanCurvature(s.mesh).mean).toBeCloseTo(r.meanH, 12)
       const t = analyzeTopology(s.mesh)

