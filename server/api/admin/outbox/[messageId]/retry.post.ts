@@ -11,5 +11,6 @@ export default defineEventHandler(async (event) => {
     columns: { id: true } })
   if (!exists) throw httpError(404, 'message_not_found', 'No such message.')
   throw httpError(409, 'not_retryable',
-    'Only failed or waiting messages can be sent again, and not one whose single-use link has expired: the recipient asks for a new link.')
+    'Only failed or waiting messages can be sent again, and not one whose single-use link has expired: the '
+      + 'recipient asks for a new link.')
 })
