@@ -31,7 +31,8 @@ export default {
       spacing: { 18: '4.5rem', 88: '22rem' },
       borderRadius: { card: '0.6rem' },
       boxShadow: { card: '0 1px 2px rgba(19, 26, 34, 0.06), 0 4px 14px rgba(19, 26, 34, 0.05)' },
-      maxWidth: { page: '72rem' },
+      // wide: pages whose plots take the width of the screen (runs, maps, compare, workbench)
+      maxWidth: { page: '72rem', wide: '120rem' },
     },
   },
   plugins: [],

@@ -40,17 +40,37 @@ export function useFormSubmit<T>(schema: ZodType<T>, state: object, action: (dat
   return { errors, serverError, busy, submit }
 }
 
+/** Plain sentences for a refused request whose body carries no message of ours (never "Server Error"). */
+const STATUS_MESSAGES: Record<number, string> = {
+  400: 'The request was not valid.',
+  401: 'Sign in first (or sign in again: the session has ended).',
+  403: 'You do not have the rights to do this.',
+  404: 'Not found, or you do not have access to it.',
+  409: 'This conflicts with a change made meanwhile; reload and try again.',
+  413: 'This is too large for the server.',
+  429: 'Too many attempts. Wait a moment, then try again.',
+}
+
 /**
- * A readable message from a failed `$fetch` (the server's `message`, else a generic one). A zod
- * validation failure (h3 puts the issues as a JSON string in `message`) becomes its issue messages.
+ * A readable message from a failed `$fetch` (the server's `message`, else a sentence for the status).
+ * A zod validation failure (h3 puts the issues as a JSON string in `message`) becomes its issue
+ * messages. Never the transport's own text ("[POST] /api/…: 401 Server Error").
  */
 export function apiErrorMessage(error: unknown): string {
   const e = error as { data?: { message?: string, data?: { name?: string, message?: string } }, statusCode?: number, message?: string }
   const zod = e?.data?.data?.name === 'ZodError' ? zodIssueMessages(e.data.data.message) : ''
   if (zod) return zod
-  if (e?.data?.message) return e.data.message
+  const own = e?.data?.message
+  if (own && own !== 'Server Error') return own
   if (e?.statusCode === undefined) return 'The server could not be reached. Check your connection and try again.'
-  return e.message || 'Something went wrong.'
+  if (STATUS_MESSAGES[e.statusCode]) return STATUS_MESSAGES[e.statusCode]!
+  return e.statusCode >= 500 ? 'The server failed to answer. Try again in a moment; if it keeps failing, tell an administrator.' : 'Something went wrong.'
+}
+
+/** The machine code a refused request carries (`data.code` of our `httpError`), or ''. */
+export function apiErrorCode(error: unknown): string {
+  const code = (error as { data?: { data?: { code?: unknown } } })?.data?.data?.code
+  return typeof code === 'string' ? code : ''
 }
 
 /** The issue messages of a serialised ZodError (`[{ message, … }, …]`), joined; '' if it is not one. */

@@ -1,6 +1,6 @@
 /** Paginated, filtered reading of the activity log (one project, or every project for admins). */
-import { and, count, desc, eq, type SQL } from 'drizzle-orm'
-import type { ActivityItem, ActivityQuery, Page } from '#shared/types/team'
+import { and, count, desc, eq, like, or, type SQL } from 'drizzle-orm'
+import { activityVerbGroup, type ActivityItem, type ActivityQuery, type Page } from '#shared/types/team'
 
 /**
  * One page of activity, newest first. Filters: verb, actor, object type, project.
@@ -10,7 +10,8 @@ export async function activityPage(q: ActivityQuery): Promise<Page<ActivityItem>
   const { activity: a, users: u, projects: p } = tables
   const filters: SQL[] = []
   if (q.projectId) filters.push(eq(a.projectId, q.projectId))
-  if (q.verb) filters.push(eq(a.verb, q.verb))
+  // a verb filter matches its group: "finished" also finds older "finished (stopped: …)" entries
+  if (q.verb) filters.push(or(eq(a.verb, q.verb), like(a.verb, `${q.verb} (%`))!)
   if (q.actorId) filters.push(eq(a.actorId, q.actorId))
   if (q.objectType) filters.push(eq(a.objectType, q.objectType))
   const where = filters.length ? and(...filters) : undefined
@@ -28,7 +29,7 @@ export async function activityPage(q: ActivityQuery): Promise<Page<ActivityItem>
   return { items, total: total!.n, page: q.page, pageSize: q.pageSize }
 }
 
-/** The distinct verbs and object types in a project's log (or all logs), for filter menus. */
+/** The distinct verbs (grouped by {@link activityVerbGroup}) and object types in a project's log (or all logs), for filter menus. */
 export async function activityFacets(projectId?: number) {
   const a = tables.activity
   const where = projectId ? eq(a.projectId, projectId) : undefined
@@ -37,5 +38,5 @@ export async function activityFacets(projectId?: number) {
     db.selectDistinct({ v: a.verb }).from(a).where(where).orderBy(a.verb),
     db.selectDistinct({ v: a.objectType }).from(a).where(where).orderBy(a.objectType),
   ])
-  return { verbs: verbs.map(r => r.v), objectTypes: types.map(r => r.v) }
+  return { verbs: [...new Set(verbs.map(r => activityVerbGroup(r.v)))].sort(), objectTypes: types.map(r => r.v) }
 }

@@ -1,5 +1,5 @@
 /** Everything an export of one run needs, loaded once. */
-import type { ExportRun } from '../../app/utils/family/export'
+import type { ExportRun } from '#shared/runs/export'
 
 /** Summary, settings and all points of a run, with the writing app version. */
 export async function loadRunExport(runId: number, settingsText: string): Promise<ExportRun> {

@@ -136,7 +136,9 @@ export function classifyCensusMap(sigma: Int32Array, name: string, options: Clas
     reason: a.reason,
     tau: tauOf(foundAt),
     rigid: v ? v.rigidity.ok : null,
-    phaseKernelDimension: v ? (v.phaseRigidity.inertia?.zero ?? null) : null,
+    // one length level: the symmetric spectrum counts the kernel; several levels: a phase-rigid
+    // pinned row Jacobian has kernel 0, otherwise the dimension is not counted (null)
+    phaseKernelDimension: v ? (v.phaseRigidity.inertia?.zero ?? (v.phaseRigidity.ok === true ? 0 : null)) : null,
     failing: a.report?.summary.failing ?? ['edgeLengths'],
     sweep: v && options.sweep && a.document.vertices.length > 1 ? sweepSummary(a.document, options.sweepGrid ?? 5) : null,
     document: a.document,

@@ -11,7 +11,9 @@ import { DenseFactor, tripletsToDense } from './dense'
 import { type LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
 import { SupernodalSymbolic, supernodalFactor } from './supernodal'
 import { type LuFactor, luFactor } from './lu'
+import { approximateMinimumDegree } from './amd'
 import { naturalOrdering, nestedDissection } from './ordering'
+import { chooseOrdering } from './ordering-choice'
 import type { Triplets } from './triplets'
 
 /** Any factorisation made here. */
@@ -23,8 +25,11 @@ export interface SolverOptions {
   method?: 'auto' | 'ldlt' | 'lu' | 'dense'
   /** Use dense ml-matrix when n ≤ this. Default 0 (always sparse: LDLᵀ inertia is exact pivot signs). */
   denseBelow?: number
-  /** 'nested-dissection' (default) or 'natural'. */
-  ordering?: 'nested-dissection' | 'natural'
+  /**
+   * 'auto' (default: AMD or nested dissection, whichever the symbolic analysis predicts to fill
+   * less, ./ordering-choice.ts), 'amd', 'nested-dissection' or 'natural'.
+   */
+  ordering?: 'auto' | 'amd' | 'nested-dissection' | 'natural'
   /** Leaf size of the nested dissection. Default 64. */
   leafSize?: number
   /** LU threshold for keeping the diagonal pivot. Default 0.1. */
@@ -38,14 +43,14 @@ export interface SolverOptions {
 
 /** Defaults of {@link SolverOptions}. */
 export const DEFAULT_SOLVER_OPTIONS: Required<SolverOptions> = {
-  method: 'auto', denseBelow: 0, ordering: 'nested-dissection', leafSize: 64, pivotTolerance: 0.1, ldlt: 'supernodal',
+  method: 'auto', denseBelow: 0, ordering: 'auto', leafSize: 64, pivotTolerance: 0.1, ldlt: 'supernodal',
 }
 
 /** Fill defaults and reject nonsense. */
 export function resolveSolverOptions(o: SolverOptions = {}): Required<SolverOptions> {
   const r = { ...DEFAULT_SOLVER_OPTIONS, ...o }
   if (!['auto', 'ldlt', 'lu', 'dense'].includes(r.method)) throw new Error(`solver: unknown method '${r.method}'`)
-  if (!['nested-dissection', 'natural'].includes(r.ordering)) throw new Error(`solver: unknown ordering '${r.ordering}'`)
+  if (!['auto', 'amd', 'nested-dissection', 'natural'].includes(r.ordering)) throw new Error(`solver: unknown ordering '${r.ordering}'`)
   if (!(Number.isInteger(r.denseBelow) && r.denseBelow >= 0)) throw new Error('solver: denseBelow must be an integer ≥ 0')
   if (!(Number.isInteger(r.leafSize) && r.leafSize >= 1)) throw new Error('solver: leafSize must be an integer ≥ 1')
   if (!(r.pivotTolerance > 0 && r.pivotTolerance <= 1)) throw new Error('solver: pivotTolerance must be in (0, 1]')
@@ -69,6 +74,22 @@ export class SparseSolver {
 
   constructor(options: SolverOptions = {}) { this.options = resolveSolverOptions(options) }
 
+  /** Ordering chosen at the last pattern analysis ('auto' resolves to 'amd' or 'nested-dissection'). */
+  orderingUsed?: 'amd' | 'nested-dissection' | 'natural'
+
+  private order(pattern: CscPattern): Int32Array {
+    const o = this.options
+    if (o.ordering === 'natural') { this.orderingUsed = 'natural'; return naturalOrdering(pattern.nRows) }
+    if (o.ordering === 'auto') {
+      const c = chooseOrdering(pattern, o.leafSize)
+      this.orderingUsed = c.chosen
+      return c.perm
+    }
+    const { ptr, adj } = symmetricAdjacency(pattern)
+    this.orderingUsed = o.ordering
+    return o.ordering === 'amd' ? approximateMinimumDegree(ptr, adj) : nestedDissection(ptr, adj, { leafSize: o.leafSize })
+  }
+
   /** Factorise the square matrix given by `t`; `symmetric` says A = Aᵀ (enables LDLᵀ and inertia). */
   factor(t: Triplets, symmetric: boolean): FactorOutcome {
     if (t.nRows !== t.nCols) throw new Error(`solver: matrix must be square, got ${t.nRows}×${t.nCols}`)
@@ -80,8 +101,7 @@ export class SparseSolver {
     }
     if (!this.pattern || !this.pattern.matches(t)) {
       this.pattern = new CscPattern(t.nRows, t.nCols, t)
-      const { ptr, adj } = symmetricAdjacency(this.pattern)
-      this.perm = o.ordering === 'natural' ? naturalOrdering(t.nRows) : nestedDissection(ptr, adj, { leafSize: o.leafSize })
+      this.perm = this.order(this.pattern)
       this.symbolic = undefined
       this.analyses++
     }

@@ -67,6 +67,14 @@ export const activityQuerySchema = z.object({
 })
 export type ActivityQuery = z.infer<typeof activityQuerySchema>
 
+/**
+ * The verb an activity entry is filtered by: its first words, without a parenthesised detail
+ * (entries written before the detail moved into `data` read "finished (stopped: …)").
+ */
+export function activityVerbGroup(verb: string): string {
+  return verb.replace(/\s*\(.*$/s, '').trim() || verb
+}
+
 export const outboxQuerySchema = z.object({
   page: z.coerce.number().int().min(1).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),

@@ -5,6 +5,7 @@
  * other demo project. A second test kills the worker mid-way and checks every saved batch stays.
  */
 import { readFileSync } from 'node:fs'
+import { availableParallelism, loadavg } from 'node:os'
 import { describe, expect, it } from 'vitest'
 import { useServerAndBrowser } from '../support/fixtures'
 import { gotoHydrated, screenshot, signInWithForm } from '../support/browser'
@@ -13,6 +14,9 @@ import { findPatternExample } from '../../shared/examples'
 import { computeBatches, graphIdByName, projectIdByName } from '../server/runs-helpers'
 
 const ctx = useServerAndBrowser()
+/** Long-task bounds that hold on this 2-core machine under load ≈ 20 (measured figures are printed). */
+const LONG_TASK_COUNT_BOUND = 8
+const LONG_TASK_MS_BOUND = 600
 const fermat = findPatternExample('fermat-pair')!
 const bridge = findPatternExample('plane-bridge')!
 
@@ -61,7 +65,11 @@ describe('families in the browser', () => {
     const runId = await startShear(page, torusId, fermatGraph, 'Fermat shear to the collapse', { stepMax: '0.05', maxPoints: '500' })
     await page.waitForSelector('[data-testid=live-run][data-state=complete]', { timeout: 60_000 })
     const longTasks = Number(await page.textContent('[data-testid=live-long-tasks]'))
-    console.log(`family run view: ${await page.textContent('[data-testid=live-points]')} points, main-thread long tasks during the run: ${longTasks}`)
+    const longest = longTasks ? Number(await page.textContent('[data-testid=live-longest-task]')) : 0
+    console.log(`family run view: ${await page.textContent('[data-testid=live-points]')} points, main-thread long tasks (> 50 ms) during the run: ${longTasks}, longest ${longest} ms (target: none; load average ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores)`)
+    // generous bounds for a shared, loaded machine; the target is no task over 50 ms
+    expect(longTasks).toBeLessThanOrEqual(LONG_TASK_COUNT_BOUND)
+    expect(longest).toBeLessThan(LONG_TASK_MS_BOUND)
 
     page.on('console', m => { if (m.type() === 'error') console.log('browser:', m.text()) })
     await screenshot(page, 'family-run-live')

@@ -25,14 +25,22 @@ async function observeLongTasks(page: Page): Promise<void> {
   })
 }
 
+/** Long tasks that started at or after `t0` (page clock, ms): [start − t0, duration]. */
+async function tasksSince(page: Page, t0: number): Promise<Array<[number, number]>> {
+  return page.evaluate(t => (window as unknown as { __longTasks: Array<[number, number]> }).__longTasks.filter(([s]) => s >= t).map(([s, d]) => [s - t, d] as [number, number]), t0)
+}
+
 async function compute(page: Page, workers: number): Promise<{ text: string, wallS: number, longTasks: number[] }> {
   await page.fill('[data-testid=map-workers]', String(workers))
   const t0 = await page.evaluate(() => performance.now())
   await page.click('[data-testid=map-compute]')
   await page.waitForSelector('[data-testid=map-timing]', { timeout: 120_000 })
+  // the map is on screen when its chart has drawn (the chart code loads on first use)
+  await page.locator('[data-testid=map-heatmap] canvas').first().waitFor()
   const text = (await page.textContent('[data-testid=map-timing]'))!
-  const longTasks = await page.evaluate(t => (window as unknown as { __longTasks: Array<[number, number]> }).__longTasks.filter(([s]) => s >= t).map(([, d]) => d), t0)
-  return { text, wallS: Number(/in ([\d.]+) s/.exec(text)![1]), longTasks }
+  const tasks = await tasksSince(page, t0)
+  console.log(`[map] ${workers} worker(s): long tasks at [start ms after the click, duration ms]: ${JSON.stringify(tasks.map(([a, d]) => [Math.round(a), Math.round(d)]))}`)
+  return { text, wallS: Number(/in ([\d.]+) s/.exec(text)![1]), longTasks: tasks.map(([, d]) => d) }
 }
 
 /**
@@ -69,9 +77,11 @@ describe('moduli map in the browser', () => {
     console.log(`21×21 τ map of ${pattern.title}: ${one.wallS.toFixed(2)} s with 1 worker, ${pool.wallS.toFixed(2)} s with the pool of ${cores} (navigator.hardwareConcurrency = ${cores})`)
     const tasks = [...one.longTasks, ...pool.longTasks]
     console.log(`[map] main-thread long tasks (> 50 ms) during the two computations: ${tasks.length}, max ${tasks.length ? Math.max(...tasks).toFixed(0) : 0} ms [${tasks.map(d => d.toFixed(0)).join(', ')}] (target: none; load average ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores)`)
-    // a generous bound for a shared, loaded machine (measured up to 533 ms at load 18 on 2 cores);
+    // generous bounds for a shared, loaded machine (measured: 3 tasks, longest 105–185 ms at load
+    // 18–23 on 2 cores, all while the finished map is first drawn; once up to 533 ms at load 18);
     // the target is no task over 50 ms
-    expect(Math.max(0, ...tasks)).toBeLessThan(1500)
+    expect(tasks.length).toBeLessThanOrEqual(8)
+    expect(Math.max(0, ...tasks)).toBeLessThan(800)
 
     // drawn: the chart canvas exists; a click on the centre picks a cell and shows the pattern there
     const canvas = page.locator('[data-testid=map-heatmap] canvas').first()

@@ -3,7 +3,7 @@
  * coordinate (drawing paths) or phase (phase paths). A point is read through `axisValue`. Pure.
  */
 import { PHASE_PATH_KINDS } from '#shared/types/family'
-import { ARCLENGTH, diagnosticQuantity, expectedDiagnostics, lambdaQuantity, sigmaMinQuantity, type Quantity } from './units'
+import { ARCLENGTH, diagnosticQuantity, expectedDiagnostics, lambdaQuantity, sigmaMinQuantity, type Quantity } from '#shared/runs/units'
 
 /** A point as the diagram reads it (live engine points and stored points both map to this). */
 export interface DiagramPoint {

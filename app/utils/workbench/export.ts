@@ -46,3 +46,17 @@ export async function svgToPng(svgText: string, width: number, height: number, p
 export function patternFileName(name: string, extension: string): string {
   return `${name.trim().toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'pattern'}${extension}`
 }
+
+/** The name a blank pattern starts with (the workbench store's default). */
+export const UNTITLED_PATTERN = 'Untitled pattern'
+
+/**
+ * Name of a pattern opened from a file: the document's own name, or the file's name without its
+ * extension when the document carries only the blank placeholder ("my-ring.wfp.json" → "my-ring").
+ */
+export function openedPatternName(docName: string, fileName: string): string {
+  const own = docName.trim()
+  if (own && own !== UNTITLED_PATTERN) return own
+  const base = fileName.replace(/\.wfp\.json$|\.json$/i, '').trim()
+  return base || own || UNTITLED_PATTERN
+}

@@ -9,7 +9,7 @@ import { join, resolve } from 'node:path'
 import { promisify } from 'node:util'
 import { afterAll, describe, expect, it, vi } from 'vitest'
 import { FamilyRunner } from '../../../shared/families'
-import { buildRunCsv, buildRunJson } from '../../../app/utils/family/export'
+import { buildRunCsv, buildRunJson } from '../../../shared/runs/export'
 import { fermatPair } from './fixtures'
 
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))

@@ -5,6 +5,7 @@ import { FamilyRunner } from '../../../shared/families/runner'
 import type { FamilySettingsInput } from '../../../shared/types/family'
 
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
+vi.mock('#shared/runs/units', () => import('../../../shared/runs/units'))
 const { availableAxes, axisValue } = await import('../../../app/utils/family/axes')
 const { defaultCompareAxis } = await import('../../../app/utils/family/compare-axis')
 

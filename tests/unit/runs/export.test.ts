@@ -3,7 +3,7 @@ import { describe, expect, it, vi } from 'vitest'
 import { FamilyRunner } from '../../../shared/families/runner'
 import { findPatternExample } from '../../../shared/examples'
 import { RESULT_CAUTION, RunPointSchema, RunSpecialPointSchema, type StoredRunPoint } from '../../../shared/types/runs'
-import { buildRunCsv, buildRunJson, type ExportRun } from '../../../app/utils/family/export'
+import { buildRunCsv, buildRunJson, type ExportRun } from '../../../shared/runs/export'
 import { availableAxes, specialAxisValue } from '../../../app/utils/family/axes'
 import { branchDiagramOption } from '../../../app/utils/family/chart'
 import { diagramSvg } from '../../../app/utils/family/chart-export'
@@ -12,6 +12,7 @@ import { parseFamilySettings } from '../../../shared/types/family'
 
 // app/utils import the core through Nuxt's #shared alias; point it at the same files here
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
+vi.mock('#shared/runs/units', () => import('../../../shared/runs/units'))
 vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
 vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
 vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))

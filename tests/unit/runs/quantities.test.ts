@@ -8,10 +8,11 @@ import { FAMILY_PATH_KINDS } from '../../../shared/types/family'
 import { MAP_QUANTITIES, mapQuantityLabel } from '../../../shared/types/maps'
 
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
+vi.mock('#shared/runs/units', () => import('../../../shared/runs/units'))
 vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
 const { availableAxes } = await import('../../../app/utils/family/axes')
-const { buildRunCsv } = await import('../../../app/utils/family/export')
-const { expectedDiagnostics, residualQuantity, sigmaMinQuantity, STEP_SIZE } = await import('../../../app/utils/family/units')
+const { buildRunCsv } = await import('../../../shared/runs/export')
+const { expectedDiagnostics, residualQuantity, sigmaMinQuantity, STEP_SIZE } = await import('../../../shared/runs/units')
 
 /** "name [unit]" → [name, unit]. */
 const split = (s: string): [string, string] => { const m = /^(.*) \[([^\]]+)\]$/.exec(s)!; return [m[1]!, m[2]!] }

@@ -1,5 +1,5 @@
 import { runRouteParamsSchema } from '#shared/types/runs'
-import { buildRunCsv } from '../../../../app/utils/family/export'
+import { buildRunCsv } from '#shared/runs/export'
 
 /** The run's points as CSV (header with units; app version, settings and caution as `#` lines). */
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { runRouteParamsSchema } from '#shared/types/runs'
-import { buildRunJson } from '../../../../app/utils/family/export'
+import { buildRunJson } from '#shared/runs/export'
 
 /** The run as re-importable JSON (settings, points, special points, app version, caution) with its server-proven
  * certificates and the certified checklist of its pattern's hypotheses. */

@@ -3,7 +3,7 @@
  * and the per-point diagnostics. Used by the CSV header, the axis labels, the inspector and the
  * exports. One quantity has one name and one unit.
  */
-import { PHASE_PATH_KINDS } from '#shared/types/family'
+import { PHASE_PATH_KINDS } from '../types/family'
 
 /** Unit of pure numbers. */
 export const DIMENSIONLESS = 'dimensionless'

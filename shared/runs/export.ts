@@ -3,7 +3,7 @@
  * (settings + points + special points; re-importable by POST /api/projects/[id]/runs/import).
  * Both carry the app version, the settings and the caution line. Pure functions.
  */
-import { RESULT_CAUTION, RUN_EXPORT_FORMAT, type RunSummary, type StoredRunPoint } from '#shared/types/runs'
+import { RESULT_CAUTION, RUN_EXPORT_FORMAT, type RunSummary, type StoredRunPoint } from '../types/runs'
 import { ARCLENGTH, diagnosticQuantity, lambdaQuantity, residualQuantity, STEP_SIZE, withUnit } from './units'
 
 /** What an export needs about the run. */
