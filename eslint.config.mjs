@@ -20,3 +20,9 @@ export default createConfigForNuxt({
   .append({
     ignores: ['.nuxt*/**', '.output*/**', 'node_modules/**', 'data/**', 'tests/artifacts/**', 'server/migrations/**', 'docs/**'],
   })
+  .append({
+    rules: {
+      // Our templates keep the first attribute on the tag's line and wrap the rest beneath it.
+      'vue/first-attribute-linebreak': 'off',
+    },
+  })

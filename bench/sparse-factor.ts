@@ -74,7 +74,7 @@ for (const [n, ratio] of totals) console.log(`mathjs slu / typed-array LDLᵀ (o
 // Dense ml-matrix at the small size, same run.
 const m = 45, n = m * m
 const dense = tripletsToDense(grid(m))
-let t0 = performance.now()
+const t0 = performance.now()
 const d = new LuDecomposition(dense)
 const tDense = ms(t0)
 d.solve(Matrix.columnVector(Array.from({ length: n }, () => 1)))

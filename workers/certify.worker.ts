@@ -6,13 +6,6 @@
  * `drawing` certifies one document's drawing and phases and returns the certified checklist.
  */
 
-/** A drawing's certificate, its one-line descriptions and the certified checklist of its hypotheses. */
-export interface DrawingCertificateResult {
-  certificate: DrawingCertificate
-  horizontal: string
-  phase: string | null
-  existence: CertifiedExistence
-}
 import { expose } from 'comlink'
 import { certifiedExistence, provenParts, type CertifiedExistence } from '../shared/certify/checklist'
 import { certifyFamilyPoints, certifyFamilySegments, type FamilyPointInput, type PointCertificate, type SegmentCertificate } from '../shared/certify/family'
@@ -21,6 +14,14 @@ import { analyzePattern } from '../shared/pattern/analyze'
 import { compilePattern } from '../shared/pattern/model'
 import type { FamilySettingsInput } from '../shared/types/family'
 import type { PatternDocument } from '../shared/types/pattern'
+
+/** A drawing's certificate, its one-line descriptions and the certified checklist of its hypotheses. */
+export interface DrawingCertificateResult {
+  certificate: DrawingCertificate
+  horizontal: string
+  phase: string | null
+  existence: CertifiedExistence
+}
 
 /** Creates the API object (exported for tests over a MessageChannel). */
 export function createCertifyWorkerApi() {

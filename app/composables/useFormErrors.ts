@@ -1,5 +1,5 @@
-import type { ZodType } from 'zod'
 import { ref } from 'vue'
+import type { ZodType } from 'zod'
 
 /**
  * Client-side validation with the same zod schema the route uses.

@@ -1,8 +1,12 @@
 import { defineStore } from 'pinia'
+import type { ContinuationPoint } from '#shared/continuation/types'
 import type { FamilyBatch } from '#shared/families/runner'
-import type { RUN_END_STATES, RunBatchPayload, RunCreatePayload, RunListQuery, RunSummary } from '#shared/types/runs'
+import type { RUN_END_STATES, RunBatchPayload, RunCreatePayload, RunListQuery, RunPointPayload, RunSummary } from '#shared/types/runs'
 
 type RunEndState = typeof RUN_END_STATES[number]
+
+/** The engine's point as the batch route takes it (its test values as a plain record). */
+const pointPayload = (p: ContinuationPoint): RunPointPayload => ({ ...p, tests: { ...p.tests } })
 
 /**
  * Runs of the current project: the library list with its filters, and saving a live run as it
@@ -27,7 +31,7 @@ export const useRunsStore = defineStore('runs', () => {
 
   /** Save one batch of a live run (points and special points as the worker delivered them). */
   function saveBatch(runId: number, batch: FamilyBatch) {
-    const body: RunBatchPayload = { points: batch.points as unknown as RunBatchPayload['points'], specialPoints: batch.specialPoints as unknown as RunBatchPayload['specialPoints'] }
+    const body: RunBatchPayload = { points: batch.points.map(pointPayload), specialPoints: batch.specialPoints }
     return $fetch<{ pointCount: number, specialCount: number }>(`/api/runs/${runId}/points`, { method: 'POST', body })
   }
 

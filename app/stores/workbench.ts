@@ -25,7 +25,7 @@ export function blankPattern(name = 'Untitled pattern', space: 'torus' | 'plane'
     format: PATTERN_FORMAT, version: PATTERN_VERSION, name, space,
     ...(space === 'torus' ? { lattice: { w1: [1, 0], w2: [0, 1] } as PatternLattice } : {}),
     vertices: [], edges: [], ...(space === 'plane' ? { wings: [] } : {}),
-  } as unknown as PatternDocument
+  }
 }
 
 const clone = <T>(x: T): T => JSON.parse(JSON.stringify(x)) as T
@@ -125,7 +125,7 @@ export const useWorkbenchStore = defineStore('workbench', () => {
     d.vertices = d.vertices.filter(v => !gone.has(v.id))
     d.edges = d.edges.filter(e => !gone.has(e.id) && !gone.has(e.from) && !gone.has(e.to))
     if (d.wings) d.wings = d.wings.filter(w => !gone.has(w.id) && !gone.has(w.vertex))
-    if (d.phases?.vertexPhases) for (const id of gone) delete d.phases.vertexPhases[id]
+    if (d.phases?.vertexPhases) d.phases.vertexPhases = Object.fromEntries(Object.entries(d.phases.vertexPhases).filter(([id]) => !gone.has(id)))
     selection.value = []
     dropRotation(); touch()
   }

@@ -9,8 +9,7 @@ import { compareQuerySchema, type RunSummary, type StoredRunPoint } from '#share
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { runs: ids } = await getValidatedQuery(event, compareQuerySchema.parse)
-  const m = tables.memberships
-  const readable = new Set((await useDb().select({ projectId: m.projectId }).from(m).where(inArray(m.userId, [user.id]))).map(r => r.projectId))
+  const readable = await readableProjectIds(user.id)
   const rows = (await runSummaryQuery().where(inArray(tables.runs.id, ids))).filter(r => readable.has(r.run.projectId))
   const runs: Array<RunSummary & { settings: unknown, points: StoredRunPoint[], specialPoints: StoredRunPoint[] }> = []
   for (const id of ids) {

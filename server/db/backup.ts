@@ -46,13 +46,15 @@ export interface DatabaseCheck {
 export async function checkDatabaseFile(file: string, migrationsDir: string): Promise<DatabaseCheck> {
   if (!existsSync(file)) return { ok: false, problems: [`${file} does not exist`], applied: 0, pending: 0 }
   const head = readFileSync(file).subarray(0, 16).toString('latin1')
-  if (head !== 'SQLite format 3\0') return { ok: false, problems: [`${file} is not an SQLite database`], applied: 0, pending: 0 }
+  if (head !== 'SQLite format 3\0') return { ok: false, problems: [`${file} is not an SQLite database`], applied: 0,
+    pending: 0 }
   const client = createClient({ url: `file:${resolve(file)}` })
   const problems: string[] = []
   try {
     let integrity: string[]
     try { integrity = (await client.execute('PRAGMA integrity_check')).rows.map(r => String(r[0])) }
-    catch (e) { return { ok: false, problems: [`integrity_check could not run: ${(e as Error).message}`], applied: 0, pending: 0 } }
+    catch (e) { return { ok: false, problems: [`integrity_check could not run: ${(e as Error).message}`], applied: 0,
+      pending: 0 } }
     if (integrity.join() !== 'ok') problems.push(`integrity_check: ${integrity.slice(0, 5).join('; ')}`)
     let whens: number[] = []
     try { whens = (await client.execute('SELECT created_at FROM __drizzle_migrations ORDER BY id')).rows.map(r => Number(r[0])) }
@@ -80,7 +82,8 @@ export function databaseHolder(dbFile: string): { pid: number, startedAt: string
 }
 
 /** Replace `dbFile` with the checked copy `file`; returns where the previous database was kept. */
-export async function restoreDatabase(file: string, dbFile: string, migrationsDir: string): Promise<{ kept: string | null, check: DatabaseCheck }> {
+export async function restoreDatabase(file: string, dbFile: string,
+  migrationsDir: string): Promise<{ kept: string | null, check: DatabaseCheck }> {
   const check = await checkDatabaseFile(file, migrationsDir)
   if (!check.ok) throw new Error(`Refused: ${check.problems.join('; ')}. Nothing was replaced.`)
   const holder = databaseHolder(dbFile)
@@ -102,7 +105,8 @@ export async function restoreDatabase(file: string, dbFile: string, migrationsDi
 export const scheduledBackupName = (date: Date) => `wingfold-${date.toISOString().replace(/[:.]/g, '-')}.db`
 
 /** Take a scheduled backup into `dir` and keep only the newest `keep` scheduled backups there. */
-export async function scheduledBackup(dbFile: string, dir: string, keep: number): Promise<{ file: string, removed: string[] }> {
+export async function scheduledBackup(dbFile: string, dir: string, keep: number): Promise<{ file: string,
+  removed: string[] }> {
   const { file } = await backupDatabase(dbFile, join(dir, scheduledBackupName(new Date())))
   const ours = readdirSync(dir).filter(f => /^wingfold-.*\.db$/.test(f)).sort()
   const removed = ours.slice(0, Math.max(0, ours.length - Math.max(1, keep)))

@@ -17,10 +17,14 @@ export interface DemoAccount {
 export const DEMO_LAB = 'Lantern Bay Surface Geometry Group'
 
 export const DEMO_ACCOUNTS: readonly DemoAccount[] = [
-  { key: 'admin', name: 'Ilse Varrow', email: 'admin@lanternbay.example', password: 'demo-admin-2026', siteRole: 'admin' },
-  { key: 'owner', name: 'Tomas Quillon', email: 'owner@lanternbay.example', password: 'demo-owner-2026', siteRole: 'member' },
-  { key: 'editor', name: 'Neve Ashdown', email: 'editor@lanternbay.example', password: 'demo-editor-2026', siteRole: 'member' },
-  { key: 'viewer', name: 'Rafi Okonkwe', email: 'viewer@lanternbay.example', password: 'demo-viewer-2026', siteRole: 'member' },
+  { key: 'admin', name: 'Ilse Varrow', email: 'admin@lanternbay.example', password: 'demo-admin-2026',
+    siteRole: 'admin' },
+  { key: 'owner', name: 'Tomas Quillon', email: 'owner@lanternbay.example', password: 'demo-owner-2026',
+    siteRole: 'member' },
+  { key: 'editor', name: 'Neve Ashdown', email: 'editor@lanternbay.example', password: 'demo-editor-2026',
+    siteRole: 'member' },
+  { key: 'viewer', name: 'Rafi Okonkwe', email: 'viewer@lanternbay.example', password: 'demo-viewer-2026',
+    siteRole: 'member' },
 ]
 
 /** One demo project: name, description, and who has which role (by account key). */

@@ -8,7 +8,8 @@
 import { PATTERN_EXAMPLES } from '../../shared/examples'
 import { analyzePattern } from '../../shared/pattern/analyze'
 import type { PatternDocument } from '../../shared/types/pattern'
-import { evenRingOfFour, leaningSquarePair, threeLineTriangle, twistedRingOfFive, weightedRingOfFour } from './demo-patterns'
+import { evenRingOfFour, leaningSquarePair, threeLineTriangle, twistedRingOfFive,
+  weightedRingOfFour } from './demo-patterns'
 
 /** A graph for the seed: display name, description, document JSON and summary JSON. */
 export interface DemoGraph {
@@ -25,8 +26,10 @@ const ORDER: Record<'torus' | 'plane', string[]> = {
 }
 
 const DRAFTS: Array<{ description: string, document: PatternDocument }> = [
-  { description: 'The square pair in a leaning cell: a shear across the square cell meets a wall of vertical balance.', document: leaningSquarePair() },
-  { description: 'Four degree-4 towers on a ring, one light phase weight: the α1 family of its phases has a fold.', document: weightedRingOfFour() },
+  { description: 'The square pair in a leaning cell: a shear across the square cell meets a wall of vertical balance.',
+    document: leaningSquarePair() },
+  { description: 'Four degree-4 towers on a ring, one light phase weight: the α1 family of its phases has a fold.',
+    document: weightedRingOfFour() },
   { description: 'The ring of four with equal weights and twisted phases: making two opposite edges lighter meets a branch point.', document: evenRingOfFour() },
   { description: 'Five phase oscillators on a ring (degree 2, not a gluing pattern): its twisted state loses phase rigidity.', document: twistedRingOfFive() },
   { description: 'Three degree-4 towers where three lines meet, phases a third of a turn apart: balanced and phase-rigid.', document: threeLineTriangle() },
@@ -41,5 +44,6 @@ export function demoGraphsFor(projectIndex: number): DemoGraph[] {
   return all
     .map((e, i) => ({ e, i }))
     .sort((a, b) => rank(a.e.document.name) - rank(b.e.document.name) || a.i - b.i)
-    .map(({ e }) => ({ name: e.document.name, description: e.description, document: e.document, summary: analyzePattern(e.document).summary }))
+    .map(({ e }) => ({ name: e.document.name, description: e.description, document: e.document,
+      summary: analyzePattern(e.document).summary }))
 }

@@ -14,7 +14,8 @@ export interface SchemaVersion { version: number, tag: string, when: number }
 
 /** The entries of the journal in `migrationsDir`. */
 export function readJournal(migrationsDir: string): JournalEntry[] {
-  const raw = JSON.parse(readFileSync(resolve(migrationsDir, 'meta/_journal.json'), 'utf8')) as { entries: JournalEntry[] }
+  const raw = JSON.parse(readFileSync(resolve(migrationsDir, 'meta/_journal.json'),
+    'utf8')) as { entries: JournalEntry[] }
   return raw.entries
 }
 

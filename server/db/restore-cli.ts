@@ -8,7 +8,8 @@ import { resolveMigrationsDir } from './migrate'
 
 const { arg: source, dbFile } = cliArguments('db:restore')
 try {
-  const { kept, check } = await restoreDatabase(source, dbFile, resolveMigrationsDir(process.env.NUXT_MIGRATIONS_DIR || undefined))
+  const { kept, check } = await restoreDatabase(source, dbFile,
+    resolveMigrationsDir(process.env.NUXT_MIGRATIONS_DIR || undefined))
   console.log(`Restored ${source} into ${dbFile} (integrity ok; ${check.applied} migrations applied, ${check.pending} to apply at the next start).`)
   if (kept) console.log(`The previous database is kept as ${kept}.`)
 } catch (e) {

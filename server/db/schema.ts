@@ -13,8 +13,10 @@ import {
 } from '../../shared/types/roles'
 import { CENSUS_JOB_STATUSES, CENSUS_QUEUES } from '../../shared/types/census'
 
-const createdAt = () => integer('created_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date())
-const updatedAt = () => integer('updated_at', { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date()).$onUpdateFn(() => new Date())
+const createdAt = () => integer('created_at',
+  { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date())
+const updatedAt = () => integer('updated_at',
+  { mode: 'timestamp_ms' }).notNull().default(sql`(unixepoch() * 1000)`).$defaultFn(() => new Date()).$onUpdateFn(() => new Date())
 
 /** People who can sign in. `siteRole` admin sees the admin pages. */
 export const users = sqliteTable('users', {
@@ -237,7 +239,8 @@ export const mailMessages = sqliteTable('mail_messages', {
   sentAt: integer('sent_at', { mode: 'timestamp_ms' }),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
-}, t => [index('mail_messages_status_idx').on(t.status, t.nextAttemptAt), uniqueIndex('mail_messages_message_id_unique').on(t.messageId)])
+}, t => [index('mail_messages_status_idx').on(t.status,
+  t.nextAttemptAt), uniqueIndex('mail_messages_message_id_unique').on(t.messageId)])
 
 /** Password-reset requests (only the token's hash is stored; single use, expiring). */
 export const passwordResets = sqliteTable('password_resets', {
@@ -267,7 +270,8 @@ export const signInFailures = sqliteTable('sign_in_failures', {
   kind: text('kind').notNull().default('sign-in'),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
-}, t => [index('sign_in_failures_email_idx').on(t.email, t.createdAt), index('sign_in_failures_ip_idx').on(t.ip, t.createdAt)])
+}, t => [index('sign_in_failures_email_idx').on(t.email, t.createdAt), index('sign_in_failures_ip_idx').on(t.ip,
+  t.createdAt)])
 
 /**
  * Signed-in sessions: the sealed cookie carries a random session key, only its SHA-256 is stored

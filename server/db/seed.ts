@@ -20,7 +20,8 @@ export interface SeedOptions {
 }
 
 /** Summary of what the seed did. */
-export interface SeedResult { users: number, projects: number, graphs: number, runs: number, maps: number, comments: number }
+export interface SeedResult { users: number, projects: number, graphs: number, runs: number, maps: number,
+  comments: number }
 
 /** Create or refresh the demo data. */
 export async function seedDemo(db: Database, opts: SeedOptions): Promise<SeedResult> {
@@ -41,8 +42,10 @@ export async function seedDemo(db: Database, opts: SeedOptions): Promise<SeedRes
     const ownerId = ids.get('owner')!
     let project = await db.query.projects.findFirst({ where: eq(projects.name, p.name) })
     if (!project) {
-      ;[project] = await db.insert(projects).values({ name: p.name, description: p.description, createdBy: ownerId }).returning()
-      await db.insert(activity).values({ projectId: project!.id, actorId: ownerId, verb: 'created', objectType: 'project', objectId: project!.id })
+      ;[project] = await db.insert(projects).values({ name: p.name, description: p.description,
+        createdBy: ownerId }).returning()
+      await db.insert(activity).values({ projectId: project!.id, actorId: ownerId, verb: 'created',
+        objectType: 'project', objectId: project!.id })
     }
     const projectId = project!.id
     projectIds.push(projectId)
@@ -51,10 +54,12 @@ export async function seedDemo(db: Database, opts: SeedOptions): Promise<SeedRes
         .onConflictDoUpdate({ target: [memberships.projectId, memberships.userId], set: { role: m.role } })
     }
     for (const [k, g] of demoGraphsFor(i).entries()) {
-      const existing = await db.query.graphs.findFirst({ where: and(eq(graphs.projectId, projectId), eq(graphs.name, g.name)) })
+      const existing = await db.query.graphs.findFirst({ where: and(eq(graphs.projectId, projectId),
+        eq(graphs.name, g.name)) })
       if (existing) continue
       const at = new Date(now - 1000 * k)
-      const [graph] = await db.insert(graphs).values({ projectId, name: g.name, description: g.description, latestVersion: 1, createdBy: ownerId, createdAt: at, updatedAt: at }).returning()
+      const [graph] = await db.insert(graphs).values({ projectId, name: g.name, description: g.description,
+        latestVersion: 1, createdBy: ownerId, createdAt: at, updatedAt: at }).returning()
       await db.insert(graphVersions).values({
         graphId: graph!.id,
         version: 1,

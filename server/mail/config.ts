@@ -36,11 +36,6 @@ export function mailSettings(): MailSettings {
   }
 }
 
-/** Delay before attempt number `attempts + 1`, in ms: retrySeconds · 2^(attempts − 1). */
-export function backoffMs(attempts: number, retrySeconds: number): number {
-  return retrySeconds * 1000 * 2 ** Math.max(0, attempts - 1)
-}
-
 /**
  * Lifetimes of the single-use links:
  * - NUXT_INVITATION_DAYS (default 7): invitation links;

@@ -33,17 +33,22 @@ export async function recordReceived(mail: ParsedMail): Promise<void> {
   }
   const db = useDb()
   const id = mail.messageId ?? null
-  let [row] = id ? await db.update(m).set({ status: 'delivered' }).where(eq(m.messageId, id)).returning({ id: m.id }) : []
-  if (!row) [row] = await db.insert(m).values({ ...values, fromAddress: mail.from?.text ?? '', messageId: id, sentAt: new Date() }).returning({ id: m.id })
-  writeToMailbox({ outboxId: row!.id, to: values.toAddress, subject: values.subject, text: values.textBody, html: values.htmlBody ?? '', messageId: id ?? '' })
+  let [row] = id ? await db.update(m).set({ status: 'delivered' }).where(eq(m.messageId,
+    id)).returning({ id: m.id }) : []
+  if (!row) [row] = await db.insert(m).values({ ...values, fromAddress: mail.from?.text ?? '', messageId: id,
+    sentAt: new Date() }).returning({ id: m.id })
+  writeToMailbox({ outboxId: row!.id, to: values.toAddress, subject: values.subject, text: values.textBody,
+    html: values.htmlBody ?? '', messageId: id ?? '' })
 }
 
 let received = 0
-function writeToMailbox(message: { outboxId: number, to: string, subject: string, text: string, html: string, messageId: string }): void {
+function writeToMailbox(message: { outboxId: number, to: string, subject: string, text: string, html: string,
+  messageId: string }): void {
   const dir = process.env.NUXT_MAILBOX_DIR
   if (!dir) return
   mkdirSync(dir, { recursive: true })
-  writeFileSync(join(dir, `${String(Date.now()).padStart(15, '0')}-${String(++received).padStart(6, '0')}.json`), JSON.stringify(message))
+  writeFileSync(join(dir, `${String(Date.now()).padStart(15, '0')}-${String(++received).padStart(6, '0')}.json`),
+    JSON.stringify(message))
 }
 
 /** Start the fake server once on 127.0.0.1 (a free port); resolves to the port. */

@@ -41,12 +41,14 @@ export async function noticeRunVerdict(runId: number): Promise<number | null> {
 }
 
 /** Tell a run's author that `commenter` commented on it (not when they comment on their own run). */
-export async function noticeComment(runId: number, commenter: { id: number, name: string }, body: string): Promise<number | null> {
+export async function noticeComment(runId: number, commenter: { id: number, name: string },
+  body: string): Promise<number | null> {
   try {
     const row = await runWithAuthor(runId)
     if (!row?.author || row.author.notifyOptOut || row.author.id === commenter.id) return null
     const excerpt = body.length > 400 ? `${body.slice(0, 400)}…` : body
-    const mail = commentMail({ name: row.author.name, authorName: commenter.name, runName: row.run.name, excerpt, url: runUrl(row.run.projectId, runId) })
+    const mail = commentMail({ name: row.author.name, authorName: commenter.name, runName: row.run.name, excerpt,
+      url: runUrl(row.run.projectId, runId) })
     return await enqueueMail({ to: row.author.email, kind: 'comment', ...mail })
   }
   catch (error) {

@@ -15,7 +15,8 @@
  */
 import { randomBytes } from 'node:crypto'
 import { and, eq, inArray, isNotNull, isNull, like, lt, lte, not } from 'drizzle-orm'
-import { backoffMs, linkLifetimes, mailSettings } from './config'
+import { backoffMs } from './backoff'
+import { linkLifetimes, mailSettings } from './config'
 import { useMailTransport } from './transport'
 import type { RenderedMail } from './templates'
 
@@ -33,7 +34,8 @@ export const REDACTED_LINK = '[link sent only to the recipient]'
 
 /** `text` with every occurrence of `secret` (raw or HTML-escaped) replaced by {@link REDACTED_LINK}. */
 export function redact(text: string, secret: string): string {
-  const escaped = secret.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;').replaceAll('"', '&quot;')
+  const escaped = secret.replaceAll('&', '&amp;').replaceAll('<', '&lt;').replaceAll('>', '&gt;').replaceAll('"',
+    '&quot;')
   return text.replaceAll(secret, REDACTED_LINK).replaceAll(escaped, REDACTED_LINK)
 }
 
@@ -69,13 +71,15 @@ export async function deliverMessage(id: number): Promise<string | null> {
   const attempts = row.attempts + 1
   try {
     const transport = await useMailTransport()
-    const body = row.deliveryBody ? JSON.parse(row.deliveryBody) as { text: string, html: string } : { text: row.textBody, html: row.htmlBody }
+    const body = row.deliveryBody ? JSON.parse(row.deliveryBody) as { text: string,
+      html: string } : { text: row.textBody, html: row.htmlBody }
     await transport.sendMail({
       from: row.fromAddress, to: row.toAddress, subject: row.subject,
       text: body.text, html: body.html ?? undefined, messageId: row.messageId ?? undefined,
     })
     // The fake server may already have marked the row `delivered` during the SMTP conversation.
-    await db.update(m).set({ attempts, sentAt: new Date(), error: null, nextAttemptAt: null, deliveryBody: null }).where(eq(m.id, id))
+    await db.update(m).set({ attempts, sentAt: new Date(), error: null, nextAttemptAt: null,
+      deliveryBody: null }).where(eq(m.id, id))
     await db.update(m).set({ status: 'sent' }).where(and(eq(m.id, id), eq(m.status, 'sending')))
     return 'sent'
   }

@@ -23,7 +23,8 @@ interface Layout {
 }
 
 function render({ subject, greeting, paragraphs, action, footer }: Layout): RenderedMail {
-  const text = [greeting, '', ...paragraphs.flatMap(p => [p, '']), ...(action ? [`${action.label}: ${action.url}`, ''] : []), '—', footer].join('\n')
+  const text = [greeting, '', ...paragraphs.flatMap(p => [p, '']),
+    ...(action ? [`${action.label}: ${action.url}`, ''] : []), '—', footer].join('\n')
   const p = (s: string) => `<p style="margin:0 0 14px">${escapeHtml(s)}</p>`
   const button = action
     ? `<p style="margin:20px 0"><a href="${escapeHtml(action.url)}" style="background:#22927f;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(action.label)}</a></p>`
@@ -39,7 +40,8 @@ const AUTOMATIC = 'This message was sent automatically by Wingfold.'
 const NOTICE_FOOTER = 'You receive notices about your runs. Turn them off on your account page.'
 
 /** Invitation to join a project with a role. */
-export function invitationMail(v: { projectName: string, inviterName: string, role: string, url: string, expiresAt: Date }): RenderedMail {
+export function invitationMail(v: { projectName: string, inviterName: string, role: string, url: string,
+  expiresAt: Date }): RenderedMail {
   return render({
     subject: `${v.inviterName} invited you to “${v.projectName}” on Wingfold`,
     greeting: 'Hello,',
@@ -67,7 +69,8 @@ export function passwordResetMail(v: { name: string, url: string, minutes: numbe
 }
 
 /** Notice to a run's author: the run was verified or rejected. */
-export function runVerdictMail(v: { name: string, runName: string, projectName: string, verdict: 'verified' | 'rejected', reason?: string | null, url: string }): RenderedMail {
+export function runVerdictMail(v: { name: string, runName: string, projectName: string,
+  verdict: 'verified' | 'rejected', reason?: string | null, url: string }): RenderedMail {
   return render({
     subject: `Run “${v.runName}” was ${v.verdict}`,
     greeting: `Hello ${v.name},`,
@@ -82,7 +85,8 @@ export function runVerdictMail(v: { name: string, runName: string, projectName: 
 }
 
 /** Notice to a run's author: someone commented on the run. */
-export function commentMail(v: { name: string, authorName: string, runName: string, excerpt: string, url: string }): RenderedMail {
+export function commentMail(v: { name: string, authorName: string, runName: string, excerpt: string,
+  url: string }): RenderedMail {
   return render({
     subject: `${v.authorName} commented on your run “${v.runName}”`,
     greeting: `Hello ${v.name},`,

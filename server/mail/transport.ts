@@ -12,7 +12,8 @@ async function create(): Promise<Transporter> {
   const { smtpUrl } = mailSettings()
   if (smtpUrl) return nodemailer.createTransport(smtpUrl)
   const port = await startFakeSmtp()
-  return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true, connectionTimeout: 5000 })
+  return nodemailer.createTransport({ host: '127.0.0.1', port, secure: false, ignoreTLS: true,
+    connectionTimeout: 5000 })
 }
 
 /** The shared transport (created on first use). */

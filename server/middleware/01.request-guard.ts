@@ -25,7 +25,8 @@ export default defineEventHandler((event) => {
     const claimed = headers.origin !== undefined ? (headers.origin === 'null' ? 'null' : originOf(headers.origin)) : originOf(headers.referer)
     if (claimed !== null) {
       const own = [originOf(useRuntimeConfig().public.baseUrl), getRequestURL(event).origin]
-      if (!own.includes(claimed)) throw httpError(403, 'foreign_origin', 'This request came from another site and was refused.')
+      if (!own.includes(claimed)) throw httpError(403, 'foreign_origin',
+        'This request came from another site and was refused.')
     }
   }
   const hasBody = Number(headers['content-length'] ?? 0) > 0 || headers['transfer-encoding'] !== undefined

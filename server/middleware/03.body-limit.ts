@@ -9,7 +9,8 @@ import type { H3Event } from 'h3'
 const WITH_BODY = new Set(['POST', 'PUT', 'PATCH', 'DELETE'])
 
 function tooLarge(limit: { bytes: number, why: string }) {
-  return httpError(413, 'body_too_large', `Request bodies here are limited to ${(limit.bytes / 1e6).toFixed(1)} MB (${limit.why}); this one is larger.`)
+  return httpError(413, 'body_too_large',
+    `Request bodies here are limited to ${(limit.bytes / 1e6).toFixed(1)} MB (${limit.why}); this one is larger.`)
 }
 
 function readLimited(event: H3Event, limit: { bytes: number, why: string }): Promise<Buffer> {

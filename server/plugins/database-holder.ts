@@ -10,7 +10,8 @@ import { holderFile } from '../db/backup'
 export default defineNitroPlugin((nitroApp) => {
   const file = databaseFilePath(useRuntimeConfig().databaseUrl)
   if (!file) return
-  ensureDatabase().then(() => writeFileSync(holderFile(file), JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() })))
+  ensureDatabase().then(() => writeFileSync(holderFile(file),
+    JSON.stringify({ pid: process.pid, startedAt: new Date().toISOString() })))
     .catch(e => console.error('[wingfold] could not write the database holder file:', e))
   nitroApp.hooks.hook('close', () => rmSync(holderFile(file), { force: true }))
 })

@@ -10,7 +10,13 @@ export interface ActivityEntry {
   data?: Record<string, unknown>
 }
 
+/** The insert of an entry, to run in one `db.batch` with the write it records. */
+export function activityInsert(entry: ActivityEntry) {
+  return useDb().insert(tables.activity).values({ ...entry, objectId: entry.objectId ?? null,
+    data: JSON.stringify(entry.data ?? {}) })
+}
+
 /** Append an entry to a project's activity log. */
 export async function logActivity(entry: ActivityEntry): Promise<void> {
-  await useDb().insert(tables.activity).values({ ...entry, objectId: entry.objectId ?? null, data: JSON.stringify(entry.data ?? {}) })
+  await activityInsert(entry)
 }

@@ -44,7 +44,8 @@ export function bearerToken(event: H3Event): string | null {
 export async function userFromBearer(event: H3Event, token: string) {
   const t = tables.apiTokens
   const db = useDb()
-  const row = await db.select({ tokenId: t.id, scope: t.scope, id: tables.users.id, email: tables.users.email, name: tables.users.name, siteRole: tables.users.siteRole })
+  const row = await db.select({ tokenId: t.id, scope: t.scope, id: tables.users.id, email: tables.users.email,
+    name: tables.users.name, siteRole: tables.users.siteRole })
     .from(t).innerJoin(tables.users, eq(tables.users.id, t.userId))
     .where(and(eq(t.tokenHash, hashToken(token)), isNull(t.revokedAt))).get()
   if (!row) throw httpError(401, 'bad_token', 'This API token is not valid or has been revoked.')
@@ -59,7 +60,8 @@ export async function userFromBearer(event: H3Event, token: string) {
 /** Create a personal API token; returns the plain token (shown once) and its row id. */
 export async function createApiToken(userId: number, name: string, scope: TokenScope) {
   const token = API_TOKEN_PREFIX + newSecret()
-  const [row] = await useDb().insert(tables.apiTokens).values({ userId, name, scope, tokenHash: hashToken(token) }).returning()
+  const [row] = await useDb().insert(tables.apiTokens).values({ userId, name, scope,
+    tokenHash: hashToken(token) }).returning()
   return { token, row: row! }
 }
 

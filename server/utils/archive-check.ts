@@ -10,7 +10,8 @@
  */
 import { createHash } from 'node:crypto'
 import { formatNumber } from '#shared/format'
-import { ARCHIVE_FORMAT_VERSION, archiveManifestSchema, archivePersonSchema, type ArchiveManifest, type ArchivePerson } from '#shared/types/archive'
+import { ARCHIVE_FORMAT_VERSION, archiveManifestSchema, archivePersonSchema, type ArchiveManifest,
+  type ArchivePerson } from '#shared/types/archive'
 import { parseFamilySettings } from '#shared/types/family'
 import { parseMapSettings, type MapResult } from '#shared/types/maps'
 import { parsePatternDocument, type PatternDocument } from '#shared/types/pattern'
@@ -41,22 +42,27 @@ export function serverSchemaVersion(): SchemaVersion {
 }
 
 const sha256 = (b: Uint8Array) => createHash('sha256').update(b).digest('hex')
-const tampered = (problems: string[]) => archiveRefusal(422, 'archive_tampered', `The archive does not match its manifest or is damaged: ${problems.slice(0, 8).join('; ')}${problems.length > 8 ? `; and ${problems.length - 8} more` : ''}.`, problems)
+const tampered = (problems: string[]) => archiveRefusal(422, 'archive_tampered',
+  `The archive does not match its manifest or is damaged: ${problems.slice(0, 8).join('; ')}${problems.length > 8 ? `; and ${problems.length - 8} more` : ''}.`, problems)
 
 /** Manifest, schema version and per-file hashes; then the parsed rows. Throws a 4xx refusal. */
 export function parseArchive(entries: Map<string, Uint8Array>): ParsedArchive {
   const raw = entries.get(ARCHIVE_FILES.manifest)
-  if (!raw) throw archiveRefusal(422, 'archive_no_manifest', 'This is not a Wingfold project archive: manifest.json is missing.', [ARCHIVE_FILES.manifest])
+  if (!raw) throw archiveRefusal(422, 'archive_no_manifest',
+    'This is not a Wingfold project archive: manifest.json is missing.', [ARCHIVE_FILES.manifest])
   let manifest: ArchiveManifest
   try { manifest = archiveManifestSchema.parse(JSON.parse(new TextDecoder().decode(raw))) }
-  catch { throw archiveRefusal(422, 'archive_bad_manifest', 'manifest.json is not a Wingfold project archive manifest.', [ARCHIVE_FILES.manifest]) }
+  catch { throw archiveRefusal(422, 'archive_bad_manifest',
+    'manifest.json is not a Wingfold project archive manifest.', [ARCHIVE_FILES.manifest]) }
   const ours = serverSchemaVersion()
   if (manifest.formatVersion > ARCHIVE_FORMAT_VERSION || manifest.schema.version > ours.version) {
-    throw archiveRefusal(409, 'archive_schema_newer', `This archive was made by a newer Wingfold (app ${manifest.appVersion}, database schema ${manifest.schema.version} "${manifest.schema.tag}") than this server (schema ${ours.version} "${ours.tag}"). Upgrade this server, then import again.`)
+    throw archiveRefusal(409, 'archive_schema_newer',
+      `This archive was made by a newer Wingfold (app ${manifest.appVersion}, database schema ${manifest.schema.version} "${manifest.schema.tag}") than this server (schema ${ours.version} "${ours.tag}"). Upgrade this server, then import again.`)
   }
   const journal = readJournal(resolveMigrationsDir(useRuntimeConfig().migrationsDir || undefined))
   if (manifest.schema.version > 0 && journal[manifest.schema.version - 1]?.tag !== manifest.schema.tag) {
-    throw archiveRefusal(409, 'archive_schema_unknown', `This archive's database schema ${manifest.schema.version} "${manifest.schema.tag}" is not one of this server's migrations; it comes from another line of Wingfold.`)
+    throw archiveRefusal(409, 'archive_schema_unknown',
+      `This archive's database schema ${manifest.schema.version} "${manifest.schema.tag}" is not one of this server's migrations; it comes from another line of Wingfold.`)
   }
   const problems: string[] = []
   const listed = new Map(manifest.files.map(f => [f.path, f]))
@@ -75,7 +81,8 @@ export function parseArchive(entries: Map<string, Uint8Array>): ParsedArchive {
   let people: ArchivePerson[] = []
   try {
     const p = JSON.parse(text(ARCHIVE_FILES.project)) as { name?: unknown, description?: unknown }
-    project = { name: String(p.name ?? '').slice(0, 120) || 'Imported project', description: String(p.description ?? '').slice(0, 2000) }
+    project = { name: String(p.name ?? '').slice(0, 120) || 'Imported project',
+      description: String(p.description ?? '').slice(0, 2000) }
     people = archivePersonSchema.array().parse(JSON.parse(text(ARCHIVE_FILES.people)))
   } catch { problems.push(`${ARCHIVE_FILES.project} or ${ARCHIVE_FILES.people}: not valid`) }
   for (const t of ARCHIVE_TABLES) {
@@ -85,7 +92,8 @@ export function parseArchive(entries: Map<string, Uint8Array>): ParsedArchive {
       try {
         const row = JSON.parse(line) as unknown
         if (!row || typeof row !== 'object' || Array.isArray(row)) throw new Error('not an object')
-        const bad = Object.entries(row).find(([c, v]) => !SQL_IDENTIFIER.test(c) || isDeniedColumn(c) || (v !== null && typeof v === 'object'))
+        const bad = Object.entries(row).find(([c,
+          v]) => !SQL_IDENTIFIER.test(c) || isDeniedColumn(c) || (v !== null && typeof v === 'object'))
         if (bad) throw new Error(`column ${bad[0]}`)
         if (!Number.isInteger((row as ArchiveRow).id)) throw new Error('no integer id')
         rows.push(row as ArchiveRow)
@@ -142,7 +150,9 @@ export function verifyArchive(a: ParsedArchive): ArchiveVerdicts {
         problems.push(`${label}: holds ${regularRows.length} points and ${rows.length - regularRows.length} special points, the run says ${String(run.point_count)} and ${String(run.special_count)}`)
         continue
       }
-      if (!rows.length) { verdicts.runs.set(run.id as number, { verification: run.verification as 'pending', reason: (run.verification_reason ?? null) as string | null }); continue }
+      if (!rows.length) { verdicts.runs.set(run.id as number,
+        { verification: run.verification as 'pending',
+        reason: (run.verification_reason ?? null) as string | null }); continue }
       const settings = parseFamilySettings(JSON.parse(String(run.settings)))
       const picks = new Set(verificationSample(regularRows.length))
       const toCheck = (r: ArchiveRow) => ({ index: (r.index as number) < 0 ? -1 - (r.index as number) : r.index as number, lambda: r.lambda as number, u: (JSON.parse(String(r.state)) as { u: number[] }).u, id: r.id as number, ...(r.special_kind ? { kind: String(r.special_kind) } : {}) })
@@ -151,11 +161,14 @@ export function verifyArchive(a: ParsedArchive): ArchiveVerdicts {
       const check = checkPoints(source.doc, settings, regular, special)
       for (const p of regular) verdicts.residuals.set(p.id, check.residuals.points.get(p.index)!)
       for (const p of special) verdicts.residuals.set(p.id, check.residuals.special.get(p.index)!)
-      if (run.verification === 'rejected') verdicts.runs.set(run.id as number, { verification: 'rejected', reason: String(run.verification_reason ?? 'Rejected before export.') })
+      if (run.verification === 'rejected') verdicts.runs.set(run.id as number,
+        { verification: 'rejected', reason: String(run.verification_reason ?? 'Rejected before export.') })
       else if (!check.ok) problems.push(`${label}: ${rejectionReason(check)}`)
       else {
         const sampled = regularRows.length > FULL_CHECK_MAX_POINTS ? ` (sample of ${regular.length} of ${regularRows.length} points plus every special point)` : ''
-        verdicts.runs.set(run.id as number, { verification: 'verified', reason: `Re-verified on import: every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${formatNumber(check.maxResidual)})${sampled}.` })
+        verdicts.runs.set(run.id as number,
+          { verification: 'verified',
+          reason: `Re-verified on import: every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${formatNumber(check.maxResidual)})${sampled}.` })
       }
     } catch (e) { problems.push(`${label}: cannot be read (${(e as Error).message})`) }
   }
@@ -166,11 +179,14 @@ export function verifyArchive(a: ParsedArchive): ArchiveVerdicts {
     try {
       const stored = JSON.parse(String(map.result)) as { result: MapResult }
       const check = checkPostedMap(source.doc, parseMapSettings(JSON.parse(String(map.settings))), stored.result)
-      if (map.verification === 'rejected') verdicts.maps.set(map.id as number, { verification: 'rejected', reason: String(map.verification_reason ?? check.reason) })
+      if (map.verification === 'rejected') verdicts.maps.set(map.id as number,
+        { verification: 'rejected', reason: String(map.verification_reason ?? check.reason) })
       else if (check.verification !== 'verified') problems.push(`${label}: ${check.reason}`)
-      else verdicts.maps.set(map.id as number, { verification: 'verified', reason: `Re-verified on import: ${check.reason}` })
+      else verdicts.maps.set(map.id as number,
+        { verification: 'verified', reason: `Re-verified on import: ${check.reason}` })
     } catch (e) { problems.push(`${label}: cannot be read (${(e as Error).message})`) }
   }
-  if (problems.length) throw archiveRefusal(422, 'archive_verification_failed', `The archive was refused: ${problems.slice(0, 5).join('; ')}${problems.length > 5 ? `; and ${problems.length - 5} more` : ''}`, problems)
+  if (problems.length) throw archiveRefusal(422, 'archive_verification_failed',
+    `The archive was refused: ${problems.slice(0, 5).join('; ')}${problems.length > 5 ? `; and ${problems.length - 5} more` : ''}`, problems)
   return verdicts
 }

@@ -35,14 +35,16 @@ async function* tableRows(tx: Transaction, table: ArchiveTable, projectId: numbe
 
 /** People referenced by the project's rows: members with their role, other authors with none. */
 async function archivePeople(tx: Transaction, projectId: number): Promise<ArchivePerson[]> {
-  const userColumns = ARCHIVE_TABLES.flatMap(t => Object.entries(t.refs).filter(([, r]) => r === 'user').map(([c]) => `SELECT ${c} AS uid FROM "${t.name}" WHERE ${t.scope}`))
+  const userColumns = ARCHIVE_TABLES.flatMap(t => Object.entries(t.refs).filter(([,
+    r]) => r === 'user').map(([c]) => `SELECT ${c} AS uid FROM "${t.name}" WHERE ${t.scope}`))
   const args = userColumns.map(() => projectId)
   const rs = await tx.execute({
     sql: `SELECT u.id AS ref, u.name AS name, m.role AS role FROM users u LEFT JOIN memberships m ON m.user_id = u.id AND m.project_id = ?
           WHERE m.project_id IS NOT NULL OR u.id IN (${userColumns.join(' UNION ')}) ORDER BY u.id`,
     args: [projectId, ...args],
   })
-  return rs.rows.map(r => ({ ref: Number(r.ref), name: String(r.name), role: (r.role ?? null) as ArchivePerson['role'] }))
+  return rs.rows.map(r => ({ ref: Number(r.ref), name: String(r.name),
+    role: (r.role ?? null) as ArchivePerson['role'] }))
 }
 
 /** Inputs of {@link projectArchiveChunks}. */
@@ -77,7 +79,8 @@ export async function* projectArchiveChunks(input: ArchiveExportInput): AsyncGen
   }
   const tx = await input.client.transaction('read')
   try {
-    const project = (await tx.execute({ sql: 'SELECT name, description FROM projects WHERE id = ?', args: [input.projectId] })).rows[0]!
+    const project = (await tx.execute({ sql: 'SELECT name, description FROM projects WHERE id = ?',
+      args: [input.projectId] })).rows[0]!
     const info = { name: String(project.name), description: String(project.description) }
     const p = entry(ARCHIVE_FILES.project)
     p.push(JSON.stringify(info, null, 2))

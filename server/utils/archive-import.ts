@@ -17,7 +17,8 @@ const BATCH_ROWS = 100
 export function archiveLimits() {
   const c = useRuntimeConfig().archiveImport
   const mb = 1024 * 1024
-  return { maxUploadBytes: c.maxMb * mb, maxEntries: c.maxEntries, maxTotalBytes: c.maxInflatedMb * mb, maxRatio: c.maxRatio }
+  return { maxUploadBytes: c.maxMb * mb, maxEntries: c.maxEntries, maxTotalBytes: c.maxInflatedMb * mb,
+    maxRatio: c.maxRatio }
 }
 
 async function tableColumns(tx: Transaction, table: string): Promise<Set<string>> {
@@ -26,7 +27,8 @@ async function tableColumns(tx: Transaction, table: string): Promise<Set<string>
 }
 
 /** Insert the archive as a new project of `owner`; returns the import answer. */
-export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: { id: number }): Promise<ArchiveImportResult> {
+export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts,
+  owner: { id: number }): Promise<ArchiveImportResult> {
   const tx = await useDb().$client.transaction('write')
   try {
     const now = Date.now()
@@ -63,7 +65,8 @@ export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: 
       }
       if (referenced.has(t.name)) {
         for (const row of rows) {
-          const { __defer, ...vals } = values(row) as Record<string, unknown> & { __defer?: { col: string, old: number } }
+          const { __defer,
+            ...vals } = values(row) as Record<string, unknown> & { __defer?: { col: string, old: number } }
           const cols = Object.keys(vals)
           const rs = await tx.execute({ sql: `INSERT INTO "${t.name}" (${cols.map(c => `"${c}"`).join(', ')}) VALUES (${cols.map(() => '?').join(', ')}) RETURNING id`, args: Object.values(vals) as InValue[] })
           const newId = Number(rs.rows[0]!.id)
@@ -74,7 +77,8 @@ export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: 
         for (let i = 0; i < rows.length; i += BATCH_ROWS) {
           const batch = rows.slice(i, i + BATCH_ROWS).map(values)
           const cols = Object.keys(batch[0]!)
-          if (batch.some(b => Object.keys(b).join() !== cols.join())) throw archiveRefusal(422, 'archive_tampered', `${t.file}: rows do not share one set of columns.`, [t.file])
+          if (batch.some(b => Object.keys(b).join() !== cols.join())) throw archiveRefusal(422, 'archive_tampered',
+            `${t.file}: rows do not share one set of columns.`, [t.file])
           await tx.execute({
             sql: `INSERT INTO "${t.name}" (${cols.map(c => `"${c}"`).join(', ')}) VALUES ${batch.map(() => `(${cols.map(() => '?').join(', ')})`).join(', ')}`,
             args: batch.flatMap(b => cols.map(c => b[c])) as InValue[],
@@ -82,13 +86,16 @@ export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: 
         }
       }
       for (const d of deferred) {
-        await tx.execute({ sql: `UPDATE "${t.name}" SET "${d.col}" = ? WHERE id = ?`, args: [idMaps.get(t.name)!.get(d.old) ?? null, d.newId] })
+        await tx.execute({ sql: `UPDATE "${t.name}" SET "${d.col}" = ? WHERE id = ?`,
+          args: [idMaps.get(t.name)!.get(d.old) ?? null, d.newId] })
       }
       counts[t.name] = rows.length
     }
     await tx.execute({
       sql: 'INSERT INTO activity (project_id, actor_id, verb, object_type, object_id, data, created_at, updated_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)',
-      args: [projectId, owner.id, 'imported', 'project', projectId, JSON.stringify({ name: a.project.name, appVersion: a.manifest.appVersion, exportedAt: a.manifest.createdAt }), now, now],
+      args: [projectId, owner.id, 'imported', 'project', projectId,
+        JSON.stringify({ name: a.project.name, appVersion: a.manifest.appVersion,
+        exportedAt: a.manifest.createdAt }), now, now],
     })
     await tx.commit()
     const tally = <T extends { verification: string }>(list: Iterable<T>) => {
@@ -104,7 +111,8 @@ export async function writeArchive(a: ParsedArchive, v: ArchiveVerdicts, owner: 
   } catch (e) {
     // a row the checks let through but the schema refuses (a duplicate, a broken constraint): nothing was committed
     if (/SQLITE_CONSTRAINT/.test(String((e as { code?: string }).code ?? (e as Error).message))) {
-      throw archiveRefusal(422, 'archive_conflict', `The archive's rows conflict with each other, so nothing was imported: ${(e as Error).message}`, [(e as Error).message])
+      throw archiveRefusal(422, 'archive_conflict',
+        `The archive's rows conflict with each other, so nothing was imported: ${(e as Error).message}`, [(e as Error).message])
     }
     throw e
   } finally {

@@ -32,7 +32,8 @@ export function unsafeEntryName(name: string): string | null {
  * Inflate every entry of the zip read from `source` into memory (bounded by `limits`).
  * @returns entry name → bytes, in archive order
  */
-export async function readArchiveStream(source: AsyncIterable<Uint8Array>, limits: ArchiveLimits): Promise<Map<string, Uint8Array>> {
+export async function readArchiveStream(source: AsyncIterable<Uint8Array>,
+  limits: ArchiveLimits): Promise<Map<string, Uint8Array>> {
   const entries = new Map<string, Uint8Array[]>()
   let failure: Error | null = null
   let read = 0, inflated = 0
@@ -42,18 +43,24 @@ export async function readArchiveStream(source: AsyncIterable<Uint8Array>, limit
   unzip.onfile = (file) => {
     if (failure) return
     const bad = unsafeEntryName(file.name)
-    if (bad) return fail(archiveRefusal(422, 'archive_unsafe_entry', `The archive holds an entry that is not allowed: ${JSON.stringify(file.name)} (${bad}).`, [file.name]))
-    if (entries.has(file.name)) return fail(archiveRefusal(422, 'archive_duplicate_entry', `The archive holds ${file.name} twice.`, [file.name]))
-    if (entries.size + 1 > limits.maxEntries) return fail(archiveRefusal(413, 'archive_too_many_entries', `The archive holds more than ${limits.maxEntries} entries.`))
+    if (bad) return fail(archiveRefusal(422, 'archive_unsafe_entry',
+      `The archive holds an entry that is not allowed: ${JSON.stringify(file.name)} (${bad}).`, [file.name]))
+    if (entries.has(file.name)) return fail(archiveRefusal(422, 'archive_duplicate_entry',
+      `The archive holds ${file.name} twice.`, [file.name]))
+    if (entries.size + 1 > limits.maxEntries) return fail(archiveRefusal(413, 'archive_too_many_entries',
+      `The archive holds more than ${limits.maxEntries} entries.`))
     const parts: Uint8Array[] = []
     entries.set(file.name, parts)
     file.ondata = (err, data) => {
       if (failure) return
-      if (err) return fail(archiveRefusal(422, 'archive_corrupt', `The archive entry ${file.name} cannot be inflated: ${err.message}.`, [file.name]))
+      if (err) return fail(archiveRefusal(422, 'archive_corrupt',
+        `The archive entry ${file.name} cannot be inflated: ${err.message}.`, [file.name]))
       inflated += data.length
-      if (inflated > limits.maxTotalBytes) return fail(archiveRefusal(413, 'archive_too_large_inflated', `The archive inflates to more than ${limits.maxTotalBytes} bytes.`, [file.name]))
+      if (inflated > limits.maxTotalBytes) return fail(archiveRefusal(413, 'archive_too_large_inflated',
+        `The archive inflates to more than ${limits.maxTotalBytes} bytes.`, [file.name]))
       if (inflated > RATIO_FLOOR_BYTES && inflated > limits.maxRatio * read) {
-        return fail(archiveRefusal(413, 'archive_ratio', `The archive inflates more than ${limits.maxRatio} times its size (at ${file.name}); it looks like a zip bomb.`, [file.name]))
+        return fail(archiveRefusal(413, 'archive_ratio',
+          `The archive inflates more than ${limits.maxRatio} times its size (at ${file.name}); it looks like a zip bomb.`, [file.name]))
       }
       parts.push(data)
     }
@@ -64,9 +71,11 @@ export async function readArchiveStream(source: AsyncIterable<Uint8Array>, limit
     // leaving a `for await` early destroys the request, and the client would see a reset instead of the answer.
     for await (const chunk of source) {
       read += chunk.length
-      if (read > limits.maxUploadBytes) throw failure ?? archiveRefusal(413, 'archive_too_large', `The upload is larger than ${limits.maxUploadBytes} bytes (runtime config archiveImport.maxMb).`)
+      if (read > limits.maxUploadBytes) throw failure ?? archiveRefusal(413, 'archive_too_large',
+        `The upload is larger than ${limits.maxUploadBytes} bytes (runtime config archiveImport.maxMb).`)
       if (failure) continue
-      try { unzip.push(chunk) } catch (e) { fail(archiveRefusal(422, 'archive_corrupt', `The upload is not a readable zip archive: ${(e as Error).message}.`)) }
+      try { unzip.push(chunk) } catch (e) { fail(archiveRefusal(422, 'archive_corrupt',
+        `The upload is not a readable zip archive: ${(e as Error).message}.`)) }
     }
     if (failure) throw failure
     unzip.push(new Uint8Array(0), true)
@@ -75,7 +84,8 @@ export async function readArchiveStream(source: AsyncIterable<Uint8Array>, limit
     throw archiveRefusal(422, 'archive_corrupt', `The upload is not a readable zip archive: ${(e as Error).message}.`)
   }
   if (failure) throw failure
-  if (entries.size === 0) throw archiveRefusal(422, 'archive_empty', 'The upload is not a Wingfold project archive (no zip entries found).')
+  if (entries.size === 0) throw archiveRefusal(422, 'archive_empty',
+    'The upload is not a Wingfold project archive (no zip entries found).')
   return new Map([...entries].map(([name, parts]) => [name, concatBytes(parts)]))
 }
 

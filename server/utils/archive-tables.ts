@@ -33,16 +33,19 @@ export interface ArchiveTable {
 }
 
 export const ARCHIVE_TABLES: readonly ArchiveTable[] = [
-  { name: 'graphs', file: 'tables/graphs.ndjson', scope: 'project_id = ?', refs: { id: 'pk', project_id: 'project', created_by: 'user' } },
+  { name: 'graphs', file: 'tables/graphs.ndjson', scope: 'project_id = ?',
+    refs: { id: 'pk', project_id: 'project', created_by: 'user' } },
   {
     name: 'graph_versions', file: 'tables/graph_versions.ndjson', scope: 'graph_id IN (SELECT id FROM graphs WHERE project_id = ?)',
     refs: { id: 'pk', graph_id: 'graphs', author_id: 'user' },
   },
   {
     name: 'runs', file: 'tables/runs.ndjson', scope: 'project_id = ?',
-    refs: { id: 'pk', project_id: 'project', graph_version_id: 'graph_versions', author_id: 'user', parent_run_id: 'runs' },
+    refs: { id: 'pk', project_id: 'project', graph_version_id: 'graph_versions', author_id: 'user',
+      parent_run_id: 'runs' },
   },
-  { name: 'run_points', file: 'tables/run_points.ndjson', scope: 'run_id IN (SELECT id FROM runs WHERE project_id = ?)', refs: { id: 'pk', run_id: 'runs' } },
+  { name: 'run_points', file: 'tables/run_points.ndjson',
+    scope: 'run_id IN (SELECT id FROM runs WHERE project_id = ?)', refs: { id: 'pk', run_id: 'runs' } },
   {
     name: 'comments', file: 'tables/comments.ndjson', scope: 'run_id IN (SELECT id FROM runs WHERE project_id = ?)',
     refs: { id: 'pk', run_id: 'runs', parent_id: 'comments', author_id: 'user' },
@@ -55,7 +58,8 @@ export const ARCHIVE_TABLES: readonly ArchiveTable[] = [
     name: 'activity', file: 'tables/activity.ndjson', scope: 'project_id = ?',
     refs: {
       id: 'pk', project_id: 'project', actor_id: 'user',
-      object_id: { byColumn: 'object_type', map: { project: 'project', graph: 'graphs', run: 'runs', map: 'maps', comment: 'comments' } },
+      object_id: { byColumn: 'object_type',
+        map: { project: 'project', graph: 'graphs', run: 'runs', map: 'maps', comment: 'comments' } },
     },
   },
 ]

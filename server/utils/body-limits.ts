@@ -8,11 +8,16 @@ import { MAX_PATTERN_BYTES } from '#shared/types/graphs'
 
 /** Larger limits: method, path pattern, bytes, why. */
 export const BODY_LIMITS: ReadonlyArray<{ method: string, path: RegExp, bytes: number, why: string }> = [
-  { method: 'POST', path: /^\/api\/projects\/[^/]+\/graphs$/, bytes: MAX_PATTERN_BYTES, why: 'a pattern document (2 MB limit of the format)' },
-  { method: 'POST', path: /^\/api\/projects\/[^/]+\/graphs\/[^/]+\/versions$/, bytes: MAX_PATTERN_BYTES, why: 'a new version of a pattern document' },
-  { method: 'POST', path: /^\/api\/runs\/[^/]+\/points$/, bytes: 8_000_000, why: 'a batch of up to 500 points with their state vectors' },
-  { method: 'POST', path: /^\/api\/projects\/[^/]+\/runs\/import$/, bytes: 32_000_000, why: 'a whole exported run (document and every point)' },
-  { method: 'POST', path: /^\/api\/projects\/[^/]+\/maps$/, bytes: 32_000_000, why: 'a computed map (every cell, crossing and traced curve)' },
+  { method: 'POST', path: /^\/api\/projects\/[^/]+\/graphs$/, bytes: MAX_PATTERN_BYTES,
+    why: 'a pattern document (2 MB limit of the format)' },
+  { method: 'POST', path: /^\/api\/projects\/[^/]+\/graphs\/[^/]+\/versions$/, bytes: MAX_PATTERN_BYTES,
+    why: 'a new version of a pattern document' },
+  { method: 'POST', path: /^\/api\/runs\/[^/]+\/points$/, bytes: 8_000_000,
+    why: 'a batch of up to 500 points with their state vectors' },
+  { method: 'POST', path: /^\/api\/projects\/[^/]+\/runs\/import$/, bytes: 32_000_000,
+    why: 'a whole exported run (document and every point)' },
+  { method: 'POST', path: /^\/api\/projects\/[^/]+\/maps$/, bytes: 32_000_000,
+    why: 'a computed map (every cell, crossing and traced curve)' },
 ]
 
 /** The byte limit of a request, and what the route takes (for the 413 message). */

@@ -30,7 +30,8 @@ export function censusUsesQueue(): boolean {
 export async function launchCensusJob(j: JobRow): Promise<void> {
   await updateCensusJob(j.id, { status: 'queued', error: null })
   if (j.queue === 'bullmq') {
-    await enqueueCensusJob(j.id, { maxTowers: j.maxTowers, maxHalfEdges: j.maxHalfEdges }, censusJobOptions(j), [...await storedCensusCodes()])
+    await enqueueCensusJob(j.id, { maxTowers: j.maxTowers, maxHalfEdges: j.maxHalfEdges }, censusJobOptions(j),
+      [...await storedCensusCodes()])
     return
   }
   const controller = new AbortController()

@@ -30,7 +30,8 @@ function connection() {
 }
 
 function chain(jobId: number, work: () => Promise<void>): void {
-  const next = (chains.get(jobId) ?? Promise.resolve()).then(work).catch(e => console.error('[wingfold] census queue:', e))
+  const next = (chains.get(jobId) ?? Promise.resolve()).then(work).catch(e => console.error('[wingfold] census queue:',
+    e))
   chains.set(jobId, next)
 }
 
@@ -46,8 +47,10 @@ function listen(): void {
     })
   })
   events.on('completed', ({ returnvalue }) => {
-    const r = (typeof returnvalue === 'string' ? JSON.parse(returnvalue) : returnvalue) as { jobId: number, cancelled: boolean, progress: CensusProgress }
-    chain(r.jobId, () => updateCensusJob(r.jobId, { ...r.progress, status: r.cancelled ? 'cancelled' : 'done', finished: true }))
+    const r = (typeof returnvalue === 'string' ? JSON.parse(returnvalue) : returnvalue) as { jobId: number,
+      cancelled: boolean, progress: CensusProgress }
+    chain(r.jobId,
+      () => updateCensusJob(r.jobId, { ...r.progress, status: r.cancelled ? 'cancelled' : 'done', finished: true }))
   })
   events.on('failed', async ({ jobId, failedReason }) => {
     const job = await queue?.getJob(jobId)
@@ -57,7 +60,8 @@ function listen(): void {
 }
 
 /** Adds a census job to the queue. */
-export async function enqueueCensusJob(jobId: number, bounds: CensusBounds, classify: ClassifyOptions, skip: string[]): Promise<void> {
+export async function enqueueCensusJob(jobId: number, bounds: CensusBounds, classify: ClassifyOptions,
+  skip: string[]): Promise<void> {
   queue ??= new Queue(CENSUS_QUEUE_NAME, { connection: connection() })
   listen()
   await events!.waitUntilReady()

@@ -3,8 +3,7 @@
  * meets the same class leaves the first row alone), job counters, and the views the API returns.
  */
 import { eq } from 'drizzle-orm'
-import type { CensusRow } from '#shared/census/run'
-import type { CensusProgress } from '#shared/census/run'
+import type { CensusProgress, CensusRow } from '#shared/census/run'
 import type { CensusJobView, CensusPatternView } from '#shared/types/census'
 
 type JobRow = typeof tables.censusJobs.$inferSelect
@@ -28,7 +27,9 @@ export async function storedCensusCodes(): Promise<Set<string>> {
 }
 
 /** Writes a job's counters (and optionally its status). */
-export async function updateCensusJob(jobId: number, p: Partial<CensusProgress> & { status?: JobRow['status'], error?: string | null, finished?: boolean }): Promise<void> {
+export async function updateCensusJob(jobId: number,
+  p: Partial<CensusProgress> & { status?: JobRow['status'], error?: string | null,
+  finished?: boolean }): Promise<void> {
   await useDb().update(tables.censusJobs).set({
     ...(p.visited !== undefined ? { visited: p.visited } : {}),
     ...(p.found !== undefined ? { found: p.found } : {}),

@@ -7,7 +7,8 @@
 import MarkdownIt from 'markdown-it'
 
 const md = new MarkdownIt({ html: false, linkify: true, breaks: true })
-const defaultLinkOpen = md.renderer.rules.link_open ?? ((tokens, idx, options, _env, self) => self.renderToken(tokens, idx, options))
+const defaultLinkOpen = md.renderer.rules.link_open ?? ((tokens, idx, options, _env, self) => self.renderToken(tokens,
+  idx, options))
 md.renderer.rules.link_open = (tokens, idx, options, env, self) => {
   tokens[idx]!.attrSet('rel', 'nofollow noopener noreferrer')
   tokens[idx]!.attrSet('target', '_blank')

@@ -1,17 +1,7 @@
-/** Comment helpers: run access, loading a comment, shaping it for the API. */
-import type { H3Event } from 'h3'
+/** Comment helpers: loading a comment, shaping it for the API (access: requireRunAccess in access.ts). */
 import { and, eq } from 'drizzle-orm'
-import type { ProjectRole } from '#shared/types/roles'
+import { roleAtLeast, type ProjectRole } from '#shared/types/roles'
 import type { CommentItem } from '#shared/types/team'
-
-/**
- * The run and the caller's project role: 401 first for anonymous callers, then the same 404 for a
- * missing run and a run in a project the caller cannot see (requireRunAccess).
- */
-export async function requireRunForComments(event: H3Event, runId: number, minRole: ProjectRole) {
-  const { run, ...access } = await requireRunAccess(event, runId, minRole)
-  return { run: { id: run.id, projectId: run.projectId, name: run.name, authorId: run.authorId }, ...access }
-}
 
 /** A comment of this run, or a 404. */
 export async function findComment(runId: number, commentId: number) {
@@ -22,10 +12,12 @@ export async function findComment(runId: number, commentId: number) {
 }
 
 /** Shape a comment row for a viewer with `role` and id `viewerId`. */
-export function toCommentItem(r: typeof tables.comments.$inferSelect, author: { id: number, name: string } | null, viewerId: number, role: ProjectRole): CommentItem {
+export function toCommentItem(r: typeof tables.comments.$inferSelect, author: { id: number, name: string } | null,
+  viewerId: number, role: ProjectRole): CommentItem {
   const own = r.authorId === viewerId
   return {
     id: r.id, parentId: r.parentId, pointIndex: r.pointIndex, author, body: r.body, html: renderCommentMarkdown(r.body),
-    edited: r.edited, canEdit: own, canDelete: own || role === 'owner', createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
+    edited: r.edited, canEdit: own, canDelete: own || roleAtLeast(role,
+      'owner'), createdAt: r.createdAt.toISOString(), updatedAt: r.updatedAt.toISOString(),
   }
 }

@@ -26,7 +26,8 @@ export async function openInvitation(token: string) {
   const row = await useDb().select({ invitation: i, projectName: p.name, inviterName: u.name })
     .from(i).innerJoin(p, eq(p.id, i.projectId)).leftJoin(u, eq(u.id, i.invitedBy))
     .where(eq(i.tokenHash, hashToken(token))).get()
-  if (!row) throw httpError(404, 'invitation_not_found', 'This invitation link is not valid. Check that you copied all of it.')
+  if (!row) throw httpError(404, 'invitation_not_found',
+    'This invitation link is not valid. Check that you copied all of it.')
   const state = invitationState(row.invitation)
   if (state !== 'pending') throw httpError(410, REFUSALS[state][0], REFUSALS[state][1])
   return row

@@ -5,7 +5,8 @@ import type { ProjectRole } from '#shared/types/roles'
 /** The membership of `userId` in `projectId`, or a 404. */
 export async function findMembership(projectId: number, userId: number) {
   const m = tables.memberships
-  const row = await useDb().query.memberships.findFirst({ where: and(eq(m.projectId, projectId), eq(m.userId, userId)) })
+  const row = await useDb().query.memberships.findFirst({ where: and(eq(m.projectId, projectId),
+    eq(m.userId, userId)) })
   if (!row) throw httpError(404, 'member_not_found', 'This person is not a member of the project.')
   return row
 }

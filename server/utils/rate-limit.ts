@@ -24,7 +24,8 @@ type Kind = 'sign-in' | 'reset'
 async function recent(kind: Kind, by: 'email' | 'ip', value: string, windowMinutes: number): Promise<number> {
   const f = tables.signInFailures
   const since = new Date(Date.now() - windowMinutes * 60_000)
-  const [row] = await useDb().select({ n: count() }).from(f).where(and(eq(f.kind, kind), eq(by === 'email' ? f.email : f.ip, value), gt(f.createdAt, since)))
+  const [row] = await useDb().select({ n: count() }).from(f).where(and(eq(f.kind, kind),
+    eq(by === 'email' ? f.email : f.ip, value), gt(f.createdAt, since)))
   return row!.n
 }
 
@@ -48,9 +49,11 @@ export function addressDelayMs(failures: number, free: number, baseMs: number, m
 export async function throttleSignIn(event: H3Event, email: string, ip: string): Promise<void> {
   const { perAccount, windowMinutes, freeAddressFailures, delayBaseMs, delayMaxMs } = useRuntimeConfig().signInLimit
   if (await recent('sign-in', 'email', email, windowMinutes) >= perAccount) {
-    throw httpError(429, 'too_many_attempts', `Too many failed sign-ins for this account. Wait ${windowMinutes} minutes and try again, or reset the password.`)
+    throw httpError(429, 'too_many_attempts',
+      `Too many failed sign-ins for this account. Wait ${windowMinutes} minutes and try again, or reset the password.`)
   }
-  const delay = addressDelayMs(await recent('sign-in', 'ip', ip, windowMinutes), freeAddressFailures, delayBaseMs, delayMaxMs)
+  const delay = addressDelayMs(await recent('sign-in', 'ip', ip, windowMinutes), freeAddressFailures, delayBaseMs,
+    delayMaxMs)
   setResponseHeader(event, 'x-sign-in-delay-ms', String(delay))
   if (delay > 0) await new Promise(resolve => setTimeout(resolve, delay))
 }
@@ -69,8 +72,10 @@ export async function clearSignInFailures(email: string): Promise<void> {
 /** Count a password-reset request; 429 past the per-account or per-address reset limit. */
 export async function limitResetRequest(email: string, ip: string): Promise<void> {
   const { perAccount, perAddress, windowMinutes } = useRuntimeConfig().resetLimit
-  if (await recent('reset', 'email', email, windowMinutes) >= perAccount || await recent('reset', 'ip', ip, windowMinutes) >= perAddress) {
-    throw httpError(429, 'too_many_reset_requests', `Too many password-reset requests. Wait ${windowMinutes} minutes, or use the link already sent.`)
+  if (await recent('reset', 'email', email, windowMinutes) >= perAccount || await recent('reset', 'ip', ip,
+    windowMinutes) >= perAddress) {
+    throw httpError(429, 'too_many_reset_requests',
+      `Too many password-reset requests. Wait ${windowMinutes} minutes, or use the link already sent.`)
   }
   await record('reset', email, ip, windowMinutes)
 }

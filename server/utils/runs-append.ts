@@ -31,14 +31,16 @@ export interface AppendResult {
 
 /** Row indices (special point k → −1 − k) and λ of a batch. */
 function batchKeys(batch: Batch): Map<number, number> {
-  return new Map([...batch.points.map(p => [p.index, p.lambda] as const), ...batch.specialPoints.map(p => [specialRowIndex(p.index), p.lambda] as const)])
+  return new Map([...batch.points.map(p => [p.index, p.lambda] as const),
+    ...batch.specialPoints.map(p => [specialRowIndex(p.index), p.lambda] as const)])
 }
 
 /** 'all' when every point of the batch is stored with the same λ, 'none' when none is, else 'some'. */
 async function storedPart(runId: number, keys: Map<number, number>): Promise<'all' | 'none' | 'some'> {
   if (!keys.size) return 'none'
   const rp = tables.runPoints
-  const rows = await useDb().select({ index: rp.index, lambda: rp.lambda }).from(rp).where(and(eq(rp.runId, runId), inArray(rp.index, [...keys.keys()])))
+  const rows = await useDb().select({ index: rp.index, lambda: rp.lambda }).from(rp).where(and(eq(rp.runId, runId),
+    inArray(rp.index, [...keys.keys()])))
   if (!rows.length) return 'none'
   return rows.length === keys.size && rows.every(r => r.lambda === keys.get(r.index)) ? 'all' : 'some'
 }
@@ -52,21 +54,25 @@ export async function appendBatch(run: RunRow, batch: Batch): Promise<AppendResu
     return { accepted: true, pointCount: counts.points, specialCount: counts.special, offending: [], duplicate: true }
   }
   if (stored === 'some') throw httpError(409, 'point_exists', 'A point with one of these indices is already saved.')
-  if (run.verification === 'rejected') throw httpError(409, 'run_rejected', `This run was rejected and takes no more points: ${run.verificationReason ?? ''}`)
-  if (run.status !== 'running') throw httpError(409, 'run_finished', `This run is ${run.status} and takes no more points.`)
+  if (run.verification === 'rejected') throw httpError(409, 'run_rejected',
+    `This run was rejected and takes no more points: ${run.verificationReason ?? ''}`)
+  if (run.status !== 'running') throw httpError(409, 'run_finished',
+    `This run is ${run.status} and takes no more points.`)
   const { doc, settings } = await loadRunProblem(run)
   const check = checkPoints(doc, settings, batch.points, batch.specialPoints)
   if (!check.ok) {
     const reason = rejectionReason(check)
     await rejectRun(run.id, reason)
     const counts = await countRunPoints(run.id)
-    const offending = check.offending.map(o => ({ name: o.name, index: o.index, residualNorm: Number.isFinite(o.residualNorm) ? o.residualNorm : null, reason: o.reason }))
+    const offending = check.offending.map(o => ({ name: o.name, index: o.index,
+      residualNorm: Number.isFinite(o.residualNorm) ? o.residualNorm : null, reason: o.reason }))
     return { accepted: false, pointCount: counts.points, specialCount: counts.special, offending, reason }
   }
   const rows = [
     ...batch.points.map(({ index, lambda, diagnostics, ...rest }) => ({
       runId: run.id, index, lambda, residual: check.residuals.points.get(index)!,
-      state: JSON.stringify(rest), diagnostics: JSON.stringify({ ...diagnostics, ...(rest.sigmaMin !== undefined ? { sigmaMin: rest.sigmaMin } : {}) }), specialKind: null,
+      state: JSON.stringify(rest), diagnostics: JSON.stringify({ ...diagnostics,
+        ...(rest.sigmaMin !== undefined ? { sigmaMin: rest.sigmaMin } : {}) }), specialKind: null,
     })),
     ...batch.specialPoints.map(({ index, lambda, kind, ...rest }) => ({
       runId: run.id, index: specialRowIndex(index), lambda, residual: check.residuals.special.get(index)!,
@@ -88,7 +94,8 @@ export async function appendBatch(run: RunRow, batch: Batch): Promise<AppendResu
     const results = await db.batch([...inserts, update] as unknown as [typeof update])
     counts = (results.at(-1) as Array<{ points: number, special: number }>)[0]!
   } catch (e) {
-    if (/UNIQUE/i.test(String((e as { cause?: unknown }).cause ?? e))) throw httpError(409, 'point_exists', 'A point with one of these indices is already saved.')
+    if (/UNIQUE/i.test(String((e as { cause?: unknown }).cause ?? e))) throw httpError(409, 'point_exists',
+      'A point with one of these indices is already saved.')
     throw e
   }
   return { accepted: true, pointCount: counts.points, specialCount: counts.special, offending: [] }

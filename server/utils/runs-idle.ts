@@ -14,7 +14,8 @@ export async function endIdleRuns(now = Date.now()): Promise<number[]> {
     .where(and(eq(r.status, 'running'), lt(r.updatedAt, cutoff))).returning({ id: r.id, projectId: r.projectId })
   for (const run of ended) {
     await verifyStoredRun(run.id)
-    await logActivity({ projectId: run.projectId, actorId: null, verb: 'finished (interrupted: no batch arrived for a while)', objectType: 'run', objectId: run.id })
+    await logActivity({ projectId: run.projectId, actorId: null,
+      verb: 'finished (interrupted: no batch arrived for a while)', objectType: 'run', objectId: run.id })
   }
   return ended.map(run => run.id)
 }

@@ -47,21 +47,25 @@ export interface PointCheck {
 }
 
 /** Checks regular and special points against the document and settings of a run. */
-export function checkPoints(doc: PatternDocument, settings: FamilySettings, points: Array<Pick<RunPoint, 'index' | 'lambda' | 'u'>>, special: Array<Pick<RunSpecialPoint, 'index' | 'lambda' | 'u'> & { kind?: string }>): PointCheck {
+export function checkPoints(doc: PatternDocument, settings: FamilySettings, points: Array<Pick<RunPoint,
+  'index' | 'lambda' | 'u'>>, special: Array<Pick<RunSpecialPoint, 'index' | 'lambda' | 'u'> & { kind?: string }>): PointCheck {
   const residuals = { points: new Map<number, number>(), special: new Map<number, number>() }
   const offending: PointCheck['offending'] = []
   let maxResidual = 0
   const run = (list: typeof special, name: string, into: Map<number, number>) => {
     if (!list.length) return
     // the smallest positive tolerance lists every point with its max|F| in one pass (one problem build)
-    const v = verifyFamilyPoints(doc, settings, list.map(p => ({ index: p.index, lambda: p.lambda, u: p.u, ...(p.kind ? { kind: p.kind } : {}) })), Number.MIN_VALUE)
+    const v = verifyFamilyPoints(doc, settings,
+      list.map(p => ({ index: p.index, lambda: p.lambda, u: p.u,
+      ...(p.kind ? { kind: p.kind } : {}) })), Number.MIN_VALUE)
     const found = new Map(v.offending.map(o => [o.index, o]))
     for (const p of list) {
       const o = found.get(p.index)
       const r = o ? o.residualNorm : 0
       into.set(p.index, r)
       if (Number.isNaN(r)) offending.push({ ...o!, name: `${name} ${p.index}` })
-      else if (!(r <= RUN_RESIDUAL_TOLERANCE)) offending.push({ index: p.index, residualNorm: r, reason: `max|F| = ${formatNumber(r)}`, name: `${name} ${p.index}` })
+      else if (!(r <= RUN_RESIDUAL_TOLERANCE)) offending.push({ index: p.index, residualNorm: r,
+        reason: `max|F| = ${formatNumber(r)}`, name: `${name} ${p.index}` })
       else maxResidual = Math.max(maxResidual, r)
     }
   }
@@ -78,15 +82,19 @@ export function rejectionReason(check: PointCheck): string {
 }
 
 /** The document and parsed settings a run was computed from. */
-export async function loadRunProblem(run: { graphVersionId: number, settings: string }): Promise<{ doc: PatternDocument, settings: FamilySettings }> {
-  const version = await useDb().query.graphVersions.findFirst({ where: eq(tables.graphVersions.id, run.graphVersionId) })
+export async function loadRunProblem(run: { graphVersionId: number,
+  settings: string }): Promise<{ doc: PatternDocument, settings: FamilySettings }> {
+  const version = await useDb().query.graphVersions.findFirst({ where: eq(tables.graphVersions.id,
+    run.graphVersionId) })
   if (!version) throw httpError(500, 'version_missing', 'The pattern version of this run is missing.')
-  return { doc: parsePatternDocument(JSON.parse(version.document)), settings: parseFamilySettings(JSON.parse(run.settings)) }
+  return { doc: parsePatternDocument(JSON.parse(version.document)),
+    settings: parseFamilySettings(JSON.parse(run.settings)) }
 }
 
 /** Marks a run rejected with the reason (it stays rejected). */
 export async function rejectRun(runId: number, reason: string): Promise<void> {
-  await useDb().update(tables.runs).set({ verification: 'rejected', verificationReason: reason, verticalBalance: VERTICAL_BALANCE_DEFINITION }).where(eq(tables.runs.id, runId))
+  await useDb().update(tables.runs).set({ verification: 'rejected', verificationReason: reason,
+    verticalBalance: VERTICAL_BALANCE_DEFINITION }).where(eq(tables.runs.id, runId))
   await noticeRunVerdict(runId)
 }
 
@@ -103,14 +111,17 @@ export async function verifyStoredRun(runId: number, fresh = false): Promise<voi
   const { doc, settings } = await loadRunProblem(run)
   const picks = new Set(verificationSample(run.pointCount))
   const rows = await useDb().select().from(tables.runPoints).where(eq(tables.runPoints.runId, runId))
-  const toCheck = (r: typeof rows[number]) => ({ index: r.index < 0 ? -1 - r.index : r.index, lambda: r.lambda, u: (JSON.parse(r.state) as { u: number[] }).u, ...(r.specialKind ? { kind: r.specialKind } : {}) })
+  const toCheck = (r: typeof rows[number]) => ({ index: r.index < 0 ? -1 - r.index : r.index, lambda: r.lambda,
+    u: (JSON.parse(r.state) as { u: number[] }).u, ...(r.specialKind ? { kind: r.specialKind } : {}) })
   const regular = rows.filter(r => r.index >= 0 && picks.has(r.index)).map(toCheck)
   const special = rows.filter(r => r.index < 0).map(toCheck)
   const check = checkPoints(doc, settings, regular, special)
   const sampled = run.pointCount > FULL_CHECK_MAX_POINTS ? ` (sample of ${regular.length} of ${run.pointCount} points plus every special point)` : ''
   await useDb().update(tables.runs).set(check.ok
-    ? { verification: 'verified', verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${formatNumber(check.maxResidual)})${sampled}.`, verticalBalance: VERTICAL_BALANCE_DEFINITION }
-    : { verification: 'rejected', verificationReason: rejectionReason(check), verticalBalance: VERTICAL_BALANCE_DEFINITION }).where(eq(tables.runs.id, runId))
+    ? { verification: 'verified',
+      verificationReason: `Every checked point has max|F| ≤ ${RUN_RESIDUAL_TOLERANCE} (largest ${formatNumber(check.maxResidual)})${sampled}.`, verticalBalance: VERTICAL_BALANCE_DEFINITION }
+    : { verification: 'rejected', verificationReason: rejectionReason(check),
+      verticalBalance: VERTICAL_BALANCE_DEFINITION }).where(eq(tables.runs.id, runId))
   await noticeRunVerdict(runId) // e-mail to the author (never throws; respects the opt-out)
 }
 

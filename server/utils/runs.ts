@@ -1,5 +1,5 @@
 /**
- * Runs on the server: access through the run's project, row mapping, and how points are stored.
+ * Runs on the server: row mapping and how points are stored (access: requireRunAccess in access.ts).
  *
  * Storage rule: regular points are rows of `run_points` with `index` ≥ 0 (their position in the
  * branch) and `special_kind` null; special point k is a row with `index` = −1 − k and
@@ -7,31 +7,13 @@
  * (u, tangent, step sizes, tests / kernel, label, precision, …); `residual` is the max|F| the
  * server recomputed when the point was saved, never the value the browser claimed.
  */
-import type { H3Event } from 'h3'
 import { and, eq, gte, lt } from 'drizzle-orm'
-import type { ProjectRole } from '#shared/types/roles'
 import type { RunSummary, StoredRunPoint } from '#shared/types/runs'
 
 /** Row index of special point k. */
 export const specialRowIndex = (k: number): number => -1 - k
 /** Special point number of a row index < 0. */
 export const specialNumber = (rowIndex: number): number => -1 - rowIndex
-
-/** The run (404 when missing or its project is not readable) and the user's role in its project. */
-export async function requireRunAccess(event: H3Event, runId: number, minRole: ProjectRole) {
-  const run = await useDb().query.runs.findFirst({ where: eq(tables.runs.id, runId) })
-  if (!run) {
-    await requireUser(event)
-    throw httpError(404, 'run_not_found', 'No such run.')
-  }
-  try {
-    const access = await requireProjectRole(event, run.projectId, minRole)
-    return { ...access, run }
-  } catch (e) {
-    if ((e as { statusCode?: number }).statusCode === 404) throw httpError(404, 'run_not_found', 'No such run.')
-    throw e
-  }
-}
 
 /** Columns of a run summary (joined with its pattern, version, author and project). */
 export function runSummarySelect() {

@@ -24,7 +24,9 @@ export async function startSession(event: H3Event, user: SessionUser): Promise<v
     userId: user.id, keyHash: hashToken(key),
     userAgent: (getRequestHeader(event, 'user-agent') ?? '').slice(0, 300), ip: clientAddress(event),
   })
-  await replaceUserSession(event, { user: { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole }, secure: { sessionKey: key }, loggedInAt: Date.now() })
+  await replaceUserSession(event,
+    { user: { id: user.id, email: user.email, name: user.name, siteRole: user.siteRole }, secure: { sessionKey: key },
+    loggedInAt: Date.now() })
 }
 
 /** The stored session row of this request's cookie, if it is still alive (else the cookie is cleared). */

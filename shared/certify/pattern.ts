@@ -9,7 +9,7 @@ import { certifyZero, type CertifyOptions, type ZeroCertificate } from './krawcz
 import { horizontalSystem } from './horizontal'
 import { choosePlaneReduction, planeSystem } from './plane'
 import { balanceJacobian } from '../pattern/balance'
-import { tripletsToDense } from '../pattern/spectrum'
+import { tripletsToDense } from '../linalg/dense'
 import { modelPhaseRows, phaseSystem } from './phase'
 
 /** A certificate part that does not apply, with the reason. */

@@ -10,7 +10,7 @@ import type { BorderedMatrix, BorderedSolver } from './bordered'
 import { jacobianAt } from './corrector'
 import { estimateRigidityMargin, estimateSigmaMin } from './sigma-min'
 import type { ContinuationProblem, TestValues } from './types'
-import { norm2 } from './vectors'
+import { norm2 } from '../linalg/vectors'
 
 /** Data at one analysed point. */
 export interface PointAnalysis {

@@ -13,7 +13,7 @@
  */
 import { SparseSolver, type FactorOutcome, type SolverOptions } from '../linalg/solver'
 import { TripletBuilder, type Triplets } from '../linalg/triplets'
-import { normInf } from './vectors'
+import { normInf } from '../linalg/vectors'
 
 /** J = [F_u | F_λ] at a point. */
 export interface PointJacobian { Fu: Triplets; Flambda: Float64Array }

@@ -8,9 +8,9 @@ import { BorderedSolver } from './bordered'
 import { analysePoint } from './analysis'
 import { correct } from './corrector'
 import { Continuation, validateProblem } from './engine'
-import { validateContinuationOptions, type ContinuationOptions } from './options'
+import { resolveContinuationOptions, type ContinuationOptions } from './options'
 import type { BranchResult, ContinuationProblem } from './types'
-import { axpy, dot, pack } from './vectors'
+import { axpy, dot, pack } from '../linalg/vectors'
 
 /**
  * New branch through the branch point `parent.specialPoints[specialPointIndex]`, leaving on the
@@ -19,7 +19,7 @@ import { axpy, dot, pack } from './vectors'
  */
 export function switchBranch(problem: ContinuationProblem, parent: BranchResult, specialPointIndex: number, options: ContinuationOptions = {}, side: 1 | -1 = 1): Continuation {
   validateProblem(problem)
-  const o = validateContinuationOptions(options)
+  const o = resolveContinuationOptions(options)
   const sp = parent.specialPoints[specialPointIndex]
   if (!sp) throw new Error(`switchBranch: no special point ${specialPointIndex} on branch ${parent.branch.id}`)
   if (sp.kind !== 'branch point' || !sp.kernel) throw new Error(`switchBranch: special point ${specialPointIndex} is a ${sp.kind}, not a branch point with a kernel direction`)

@@ -15,7 +15,7 @@
  */
 import type { ContinuationProblem } from './types'
 import type { BorderedMatrix, BorderedSolver, PointJacobian } from './bordered'
-import { dot, normInf } from './vectors'
+import { dot, normInf } from '../linalg/vectors'
 
 /** Largest residual, in units of residualTolerance, that the small-update rule may accept. */
 export const STALL_FACTOR = 100

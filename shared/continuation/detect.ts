@@ -18,7 +18,7 @@ import type { BorderedSolver } from './bordered'
 import { locateInSegment, type LocateContext, type Located, type Segment, type Watch } from './locate'
 import type { ResolvedOptions } from './options'
 import type { EventLimit } from './types'
-import { axpy, dot, normInf, normalized, norm2, probeVector } from './vectors'
+import { axpy, dot, normInf, normalized, norm2, probeVector } from '../linalg/vectors'
 
 /** A located special point inside a step. */
 export interface Finding {

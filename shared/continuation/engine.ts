@@ -17,10 +17,10 @@ import { analysePoint, type PointAnalysis } from './analysis'
 import { correct, jacobianAt } from './corrector'
 import { detectInStep, type Finding } from './detect'
 import type { LocateContext } from './locate'
-import { validateContinuationOptions, type ContinuationOptions, type ResolvedOptions } from './options'
+import { resolveContinuationOptions, type ContinuationOptions, type ResolvedOptions } from './options'
 import { estimateSigmaMin } from './sigma-min'
 import type { BranchInfo, BranchResult, ContinuationPoint, ContinuationProblem, ContinuationStart, SpecialPoint, StepOutcome } from './types'
-import { axpy, dot, normInf, normalized, pack, probeVector } from './vectors'
+import { axpy, dot, normInf, normalized, pack, probeVector } from '../linalg/vectors'
 
 /** Throws a clear error when the problem object is malformed. */
 export function validateProblem(problem: ContinuationProblem): void {
@@ -52,7 +52,7 @@ export class Continuation {
 
   constructor(readonly problem: ContinuationProblem, start: ContinuationStart, options: ContinuationOptions = {}, readonly branch: BranchInfo = { id: 'branch-1' }) {
     validateProblem(problem)
-    this.options = validateContinuationOptions(options)
+    this.options = resolveContinuationOptions(options)
     const o = this.options
     const n = problem.n
     if (start.u.length !== n) throw new Error(`continuation: start.u has length ${start.u.length}, expected ${n}`)

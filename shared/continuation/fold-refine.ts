@@ -13,10 +13,10 @@
  * Newton step, no second derivatives from the problem. Each step solves
  * [[F_u, F_λ], [g_yᵀ]] δ = −(F, g).
  */
-import { BorderedSolver, type PointJacobian } from './bordered'
+import type { BorderedSolver, PointJacobian } from './bordered'
 import { jacobianAt } from './corrector'
 import type { ContinuationProblem } from './types'
-import { normInf, normalized } from './vectors'
+import { normInf, normalized } from '../linalg/vectors'
 
 /** Result of {@link refineFold}. */
 export interface FoldRefinement { converged: boolean; y: Float64Array; iterations: number; lastLambdaUpdate: number }

@@ -10,7 +10,7 @@ import type { BorderedSolver } from './bordered'
 import { analysePoint, type PointAnalysis } from './analysis'
 import { correct, type CorrectorSettings } from './corrector'
 import type { ContinuationProblem } from './types'
-import { axpy, dot, normInf } from './vectors'
+import { axpy, dot, normInf } from '../linalg/vectors'
 
 /** What the locator needs from the engine. */
 export interface LocateContext {

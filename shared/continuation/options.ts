@@ -1,5 +1,5 @@
 /** Options of the continuation engine, their defaults, and their validation. */
-import { validateSolverOptions, type SolverOptions } from '../linalg/solver'
+import { resolveSolverOptions, type SolverOptions } from '../linalg/solver'
 
 /** Bound on one component of the state u. */
 export interface StateBound { component: number; min?: number; max?: number }
@@ -82,7 +82,7 @@ export interface ContinuationOptions {
 export type OptionNames = Partial<Record<'allowSingularStart' | 'minStep' | 'maxPoints', string>>
 
 /** Defaults of {@link ContinuationOptions}. */
-export const CONTINUATION_DEFAULTS = {
+export const DEFAULT_CONTINUATION_OPTIONS = {
   direction: 'increase', predictor: 'tangent', initialStep: 0.05, minStep: 1e-8, maxStep: 0.5,
   growFactor: 1.5, shrinkFactor: 0.5, fastIterations: 3, maxNewtonIterations: 10, chordNewton: false,
   residualTolerance: 1e-10, stepTolerance: 1e-10, maxTurnAngle: 0.5, maxPoints: 1000,
@@ -94,11 +94,11 @@ export const CONTINUATION_DEFAULTS = {
 } satisfies Required<ContinuationOptions>
 
 /** Options with every default filled in. */
-export type ResolvedOptions = Omit<typeof CONTINUATION_DEFAULTS, 'direction' | 'predictor'> & { direction: 'increase' | 'decrease'; predictor: 'tangent' | 'secant' }
+export type ResolvedOptions = Omit<typeof DEFAULT_CONTINUATION_OPTIONS, 'direction' | 'predictor'> & { direction: 'increase' | 'decrease'; predictor: 'tangent' | 'secant' }
 
 /** Fill defaults and reject nonsense with a clear message. */
-export function validateContinuationOptions(o: ContinuationOptions = {}): ResolvedOptions {
-  const r = { ...CONTINUATION_DEFAULTS, ...o } as ResolvedOptions
+export function resolveContinuationOptions(o: ContinuationOptions = {}): ResolvedOptions {
+  const r = { ...DEFAULT_CONTINUATION_OPTIONS, ...o } as ResolvedOptions
   const positive = ['initialStep', 'minStep', 'maxStep', 'residualTolerance', 'stepTolerance', 'maxTurnAngle', 'locateTolerance', 'closedLoopTolerance', 'singularTolerance', 'borderingTolerance'] as const
   for (const k of positive) if (!(typeof r[k] === 'number' && r[k] > 0)) throw new Error(`continuation: ${k} must be a positive number`)
   const counts = ['fastIterations', 'maxNewtonIterations', 'maxPoints', 'maxLocateIterations', 'sigmaIterations'] as const
@@ -116,6 +116,6 @@ export function validateContinuationOptions(o: ContinuationOptions = {}): Resolv
     if (!Number.isInteger(b.component) || b.component < 0) throw new Error('continuation: stateBounds component must be an index ≥ 0')
     if (b.min === undefined && b.max === undefined) throw new Error('continuation: a state bound needs min or max')
   }
-  validateSolverOptions(r.solver)
+  resolveSolverOptions(r.solver)
   return r
 }

@@ -20,7 +20,7 @@
  */
 import type { Factorization } from '../linalg/solver'
 import type { RigidityMargin } from './types'
-import { norm2, probeVector } from './vectors'
+import { norm2, probeVector } from '../linalg/vectors'
 
 /** σ_min estimate and the corresponding approximate right singular vector (unit). */
 export function estimateSigmaMin(f: Factorization, symmetric: boolean, iterations: number, start?: Float64Array): { sigma: number; vector: Float64Array } {
@@ -59,7 +59,7 @@ export function estimateRigidityMargin(
   if (start && start.length === N) x = start.slice()
   else { x = new Float64Array(N); const p = probeVector(n); for (let i = 0; i < n; i++) x[free[i]!] = p[i]! }
   projectOut(margin.trivial, x)
-  let s0 = norm2(x)
+  const s0 = norm2(x)
   let reduced = new Float64Array(n)
   if (!(s0 > 0)) return { sigma: 0, vector: x, reduced }
   for (let i = 0; i < N; i++) x[i]! /= s0

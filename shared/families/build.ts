@@ -2,7 +2,7 @@
  * From a pattern document and family settings to an engine run: the problem, the start point
  * (balanced at the start value of λ when asked) and the engine options.
  */
-import { CONTINUATION_DEFAULTS, type ContinuationOptions } from '../continuation/options'
+import { DEFAULT_CONTINUATION_OPTIONS, type ContinuationOptions } from '../continuation/options'
 import type { ContinuationProblem, ContinuationStart } from '../continuation/types'
 import { solveBalance } from '../pattern/balance-solve'
 import { compilePattern, type PatternModel } from '../pattern/model'
@@ -78,7 +78,7 @@ export function familyOptions(settings: FamilySettings, lambda0: number): Contin
     stopAtSpecialPoint: settings.stop.stopAtSpecialPoint,
     locateTolerance: settings.stop.locateTolerance,
     // a given max (or min) below (above) the default first step moves the first step with it
-    initialStep: s.initial ?? Math.max(s.min ?? 0, Math.min(CONTINUATION_DEFAULTS.initialStep, s.max ?? Infinity)),
+    initialStep: s.initial ?? Math.max(s.min ?? 0, Math.min(DEFAULT_CONTINUATION_OPTIONS.initialStep, s.max ?? Infinity)),
     ...(s.min !== undefined ? { minStep: s.min } : {}),
     ...(s.max !== undefined ? { maxStep: s.max } : {}),
     ...(s.maxNewtonIterations !== undefined ? { maxNewtonIterations: s.maxNewtonIterations } : {}),

@@ -1,5 +1,5 @@
 /**
- * Degeneration events of a drawing along a family (domain.md §4): edge collapse (shortest edge
+ * Degeneration events of a drawing along a family (docs/theory.md §7): edge collapse (shortest edge
  * below a fraction of the mean), order flip (the signed cyclic-order margin of a vertex passes
  * 0) and lattice degeneracy (the cell's area reaches 0). Each is one smooth-enough scalar whose
  * sign change the engine locates.

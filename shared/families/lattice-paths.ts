@@ -1,5 +1,5 @@
 /**
- * Lattice paths (domain.md §6): λ ↦ ω(λ) = (ω1, ω2) with its derivative dω/dλ, for shear,
+ * Lattice paths (docs/theory.md §7): λ ↦ ω(λ) = (ω1, ω2) with its derivative dω/dλ, for shear,
  * stretch of Im τ, angle of ω2, straight interpolation and a polyline in the τ plane
  * (τ = ω2/ω1 as complex numbers, ω1 fixed, so ω2 = ω1·τ).
  */

@@ -7,8 +7,7 @@
  * point on every milestone and stops at terminal events and at the target, with the same outputs
  * as the continuation engine.
  */
-import type { ResolvedOptions } from '../continuation/options'
-import { validateContinuationOptions, type ContinuationOptions } from '../continuation/options'
+import { resolveContinuationOptions, type ContinuationOptions, type ResolvedOptions } from '../continuation/options'
 import { createContinuation, type Continuation } from '../continuation/engine'
 import type { BranchInfo, BranchResult, ContinuationPoint, ContinuationProblem, ContinuationStart, SpecialPoint, StepOutcome } from '../continuation/types'
 
@@ -31,7 +30,7 @@ export class PathOnlyRun {
 
   constructor(readonly problem: ContinuationProblem, lambda0: number, options: ContinuationOptions, readonly branch: BranchInfo) {
     if (problem.n !== 0) throw new Error('families: a path-only run needs a problem without unknowns')
-    this.options = validateContinuationOptions(options)
+    this.options = resolveContinuationOptions(options)
     this.dir = this.options.direction === 'increase' ? 1 : -1
     this.push(lambda0, 0)
   }

@@ -1,5 +1,5 @@
 /**
- * Wing rotation of a plane pattern. Count (domain.md §4): B is 0-homogeneous in p, so with
+ * Wing rotation of a plane pattern. Count (docs/theory.md §4): B is 0-homogeneous in p, so with
  * ΣB = Σ_open u_h = 0 and ⟨B, p⟩ = −L(p) only 2V − 3 of the 2V balance equations are
  * independent of the 2V − 3 position unknowns left after pinning translations and the scale —
  * balanced drawings need one extra condition L = 0 on the wing data. Turning one wing set by λ

@@ -20,7 +20,7 @@ export interface BatchOptions {
 }
 
 /** Defaults of {@link BatchOptions}. */
-export const BATCH_DEFAULTS: Required<BatchOptions> = { points: 20, ms: 50 }
+export const DEFAULT_BATCH_OPTIONS: Required<BatchOptions> = { points: 20, ms: 50 }
 
 /** Progress after a batch. */
 export interface FamilyProgress {
@@ -58,7 +58,7 @@ export interface FamilyRunResult {
 }
 
 function validateBatch(o: BatchOptions = {}): Required<BatchOptions> {
-  const r = { ...BATCH_DEFAULTS, ...o }
+  const r = { ...DEFAULT_BATCH_OPTIONS, ...o }
   if (!(Number.isInteger(r.points) && r.points >= 1)) throw new Error('families: batch points must be an integer ≥ 1')
   if (!(r.ms > 0)) throw new Error('families: batch ms must be positive')
   return r

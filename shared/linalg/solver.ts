@@ -8,9 +8,9 @@
  */
 import { CscPattern, symmetricAdjacency } from './csc'
 import { DenseFactor, tripletsToDense } from './dense'
-import { LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
+import { type LdltFactor, LdltSymbolic, ldltFactor, type Inertia } from './ldlt'
 import { SupernodalSymbolic, supernodalFactor } from './supernodal'
-import { LuFactor, luFactor } from './lu'
+import { type LuFactor, luFactor } from './lu'
 import { approximateMinimumDegree } from './amd'
 import { naturalOrdering, nestedDissection } from './ordering'
 import { chooseOrdering } from './ordering-choice'
@@ -42,13 +42,13 @@ export interface SolverOptions {
 }
 
 /** Defaults of {@link SolverOptions}. */
-export const SOLVER_DEFAULTS: Required<SolverOptions> = {
+export const DEFAULT_SOLVER_OPTIONS: Required<SolverOptions> = {
   method: 'auto', denseBelow: 0, ordering: 'auto', leafSize: 64, pivotTolerance: 0.1, ldlt: 'supernodal',
 }
 
 /** Fill defaults and reject nonsense. */
-export function validateSolverOptions(o: SolverOptions = {}): Required<SolverOptions> {
-  const r = { ...SOLVER_DEFAULTS, ...o }
+export function resolveSolverOptions(o: SolverOptions = {}): Required<SolverOptions> {
+  const r = { ...DEFAULT_SOLVER_OPTIONS, ...o }
   if (!['auto', 'ldlt', 'lu', 'dense'].includes(r.method)) throw new Error(`solver: unknown method '${r.method}'`)
   if (!['auto', 'amd', 'nested-dissection', 'natural'].includes(r.ordering)) throw new Error(`solver: unknown ordering '${r.ordering}'`)
   if (!(Number.isInteger(r.denseBelow) && r.denseBelow >= 0)) throw new Error('solver: denseBelow must be an integer ≥ 0')
@@ -72,7 +72,7 @@ export class SparseSolver {
   /** Number of times the pattern analysis (compression + ordering) was (re)done. */
   analyses = 0
 
-  constructor(options: SolverOptions = {}) { this.options = validateSolverOptions(options) }
+  constructor(options: SolverOptions = {}) { this.options = resolveSolverOptions(options) }
 
   /** Ordering chosen at the last pattern analysis ('auto' resolves to 'amd' or 'nested-dissection'). */
   orderingUsed?: 'amd' | 'nested-dissection' | 'natural'

@@ -6,17 +6,14 @@
  * 0-homogeneous in the scale, so the scale only sets the size of the drawing.
  * (α1, α2) plane: the phase problem of shared/families with α = (x, y).
  */
-import type { ContinuationProblem } from '../continuation/types'
-import type { DrawingAt } from '../families/events'
+import type { ContinuationPoint, ContinuationProblem } from '../continuation/types'
 import type { LatticePath } from '../families/lattice-paths'
 import { latticeTau } from '../families/lattice-paths'
 import { phaseProblem, type PhasePath } from '../families/phase'
 import { torusLatticeProblem } from '../families/torus'
 import { solveBalance } from '../pattern/balance-solve'
-import { meanEdgeLength } from '../pattern/geometry'
 import type { Lattice, PatternModel } from '../pattern/model'
-import { meanWeight, solvePhases } from '../pattern/phase-solve'
-import type { ContinuationPoint } from '../continuation/types'
+import { solvePhases } from '../pattern/phase-solve'
 import type { MapCell, MapSettings } from '../types/maps'
 
 /** Numbers a solved cell records, from an engine point. */
@@ -64,8 +61,8 @@ function tauPlane(m: PatternModel, s: MapSettings): MapPlaneModel {
   const at = tauLattice(m.lattice, s.scaleBy)
   const ev = { collapseTolerance: s.collapseTolerance, orderFlip: s.orderFlip, terminal: true }
   const slice = (path: LatticePath): PlaneSlice => {
-    const { problem, drawingAt } = torusLatticeProblem(m, path, ev)
-    return { problem, values: p => drawingValues(m, drawingAt, p) }
+    const { problem } = torusLatticeProblem(m, path, ev)
+    return { problem, values: drawingValues }
   }
   return {
     row: y => slice({ lambda0: 0, at: x => { const r = at(x, y); return { lattice: r.lattice, derivative: r.dRe } } }),
@@ -79,8 +76,7 @@ function tauPlane(m: PatternModel, s: MapSettings): MapPlaneModel {
   }
 }
 
-function drawingValues(m: PatternModel, drawingAt: DrawingAt, p: ContinuationPoint): CellValues {
-  const { p: pos, lattice } = drawingAt(Float64Array.from(p.u), p.lambda)
+function drawingValues(p: ContinuationPoint): CellValues {
   const d = p.diagnostics ?? {}
   const v: CellValues = {
     minEdgeRatio: d.minEdgeRatio,
@@ -95,7 +91,6 @@ function drawingValues(m: PatternModel, drawingAt: DrawingAt, p: ContinuationPoi
 function alphaPlane(m: PatternModel): MapPlaneModel {
   const K = m.weight
   const zero = new Float64Array(m.nEdges)
-  const kBar = meanWeight(K)
   const slice = (alpha: (l: number) => [number, number], dAlpha: [number, number]): PlaneSlice => {
     const path: PhasePath = { lambda0: 0, alpha, dAlpha, weights: () => K, dWeights: zero }
     const { problem } = phaseProblem(m, path)

@@ -1,5 +1,5 @@
 /**
- * `analyzePattern`: every verdict of issue 3 on a parsed document, as one JSON-serialisable
+ * `analyzePattern`: every verdict of the pattern checks on a parsed document, as one JSON-serialisable
  * `PatternReport`. The drawing is judged as it is (no solve); `balancePattern` and
  * `solvePhases` move it to a balanced state first when wanted.
  */
@@ -22,7 +22,7 @@ import { classifyVertices } from './vertex-towers'
 import { levelResidual, modelLevels, rowsDependingOnK } from './vertical-balance'
 import { wallReport } from './vertical-levels'
 import { cycleShifts, openFaces, sublatticeIndex } from './shifts'
-import { maxOf, minOf, norm2 } from './vector'
+import { maxOf, minOf, norm2 } from '../linalg/vectors'
 
 /** Tolerances and limits of the analysis; every one optional, defaults below. */
 export interface AnalyzeOptions {

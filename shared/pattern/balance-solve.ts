@@ -1,5 +1,5 @@
 /**
- * Balance solve: turns a rough drawing into a balanced one (B = 0, domain.md §4) by damped
+ * Balance solve: turns a rough drawing into a balanced one (B = 0, docs/theory.md §4) by damped
  * Newton on the positions (see ./newton.ts). The first vertex is pinned (translations); in the
  * plane the scale is fixed too, by keeping the projection of the first non-loop edge on its
  * starting direction (B is invariant under dilation). The lattice and the wings stay fixed.
@@ -21,8 +21,8 @@ import type { Lattice, PatternModel } from './model'
 import { compilePattern } from './model'
 import { dampedNewton } from './newton'
 import { SparseBalanceStep } from './balance-step'
-import { tripletsToDense } from './spectrum'
-import { norm2 } from './vector'
+import { tripletsToDense } from '../linalg/dense'
+import { norm2 } from '../linalg/vectors'
 
 /** Options of the balance solve. */
 export interface BalanceOptions {

@@ -1,5 +1,5 @@
 /**
- * Horizontal balance (domain.md §4): residual B(v) = Σ_{h at v} u_h, its analytic Jacobian
+ * Horizontal balance (docs/theory.md §4): residual B(v) = Σ_{h at v} u_h, its analytic Jacobian
  * J = ∂B/∂p (symmetric, = −Hess L) and its lattice derivative ∂B/∂(ω1x, ω1y, ω2x, ω2y).
  * A closed edge e: v → w with x_e = p_w + T(k_e) − p_v, ℓ = |x_e|, u = x_e/ℓ, P = I − u uᵀ:
  *   B(v) += u, B(w) −= u;  ∂u/∂x = P/ℓ;  ∂x/∂p_w = I, ∂x/∂p_v = −I, ∂x/∂ω_i = k_i I.

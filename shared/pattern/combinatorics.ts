@@ -1,5 +1,5 @@
 /**
- * Combinatorics of the rotation system (domain.md §2–3): faces as orbits of φ = σ∘ι (open wings
+ * Combinatorics of the rotation system (docs/theory.md §2–3): faces as orbits of φ = σ∘ι (open wings
  * removed from σ first), connected components, Euler characteristic and genus, degree checks,
  * and the predicted topology of the glued surface.
  * Reference: B. Mohar, C. Thomassen, Graphs on Surfaces (2001), §3.2 (rotation systems, faces).
@@ -86,7 +86,7 @@ export interface Topology {
   eulerCharacteristic: number
   /** Genus of the rotation system's surface, (2c − χ)/2 summed over components. */
   embeddingGenus: number
-  /** Genus of the glued surface's quotient, E − V + 1 (domain.md §3); E − V + c summed over c components. */
+  /** Genus of the glued surface's quotient, E − V + 1 (docs/theory.md §3); E − V + c summed over c components. */
   predictedGenus: number
   /** Number of open ends of the glued surface: one per open wing. */
   openEnds: number

@@ -1,10 +1,10 @@
 /**
- * Geometry of a drawing (domain.md §3): edge vectors x_e = p(to) + T(k_e) − p(from), lengths,
+ * Geometry of a drawing (docs/theory.md §3): edge vectors x_e = p(to) + T(k_e) − p(from), lengths,
  * total length, and the signed cyclic-order margin of each vertex.
  */
 import type { Lattice, PatternModel } from './model'
 import { halfEdgeDirection } from './model'
-import { minOf } from './vector'
+import { minOf } from '../linalg/vectors'
 
 /** Edge vectors of the closed edges (2E, interleaved), into `out` (allocated when absent). */
 export function edgeVectors(
@@ -46,7 +46,7 @@ export function totalLength(m: PatternModel, p: Float64Array, lat: Lattice): num
 }
 
 /**
- * The length functional L(p) = Σ_closed ℓ_e − Σ_open ⟨u_h, p(v(h))⟩ (domain.md §4), whose
+ * The length functional L(p) = Σ_closed ℓ_e − Σ_open ⟨u_h, p(v(h))⟩ (docs/theory.md §4), whose
  * gradient is −B: balanced drawings are its critical points (here: minima, L being convex).
  */
 export function lengthFunctional(m: PatternModel, p: Float64Array, lat: Lattice): number {

@@ -8,7 +8,7 @@
  * dense Jacobian is then only the fallback where that step has none.
  */
 import { LuDecomposition, Matrix, solve } from 'ml-matrix'
-import { norm2 } from './vector'
+import { norm2 } from '../linalg/vectors'
 
 /** The problem: unknowns x, equations F(x), dense Jacobian ∂F/∂x. */
 export interface NewtonProblem {

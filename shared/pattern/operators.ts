@@ -1,5 +1,5 @@
 /**
- * Linear operators on the edge space A (one value per closed edge, a(ιh) = −a(h)), domain.md §2:
+ * Linear operators on the edge space A (one value per closed edge, a(ιh) = −a(h)), docs/theory.md §2:
  *   div: A → R^V,  (div a)(v) = Σ_{h at v} a(h)
  *   curl: A → R^F, (curl a)(f) = Σ_{h in f} a(h)
  *   d: R^V → A,    (d g)(e) = g(to) − g(from) = (−divᵀ g)(e)

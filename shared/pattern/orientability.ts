@@ -1,5 +1,5 @@
 /**
- * Orientability (domain.md §2): signs s(h) = ±1 with s(ιh) = −s(h) on closed edges and
+ * Orientability (docs/theory.md §2): signs s(h) = ±1 with s(ιh) = −s(h) on closed edges and
  * s(σh) = −s(h) at vertices. Solvable iff the relation graph on half-edges is bipartite
  * (breadth-first 2-colouring); otherwise a closed chain of relations of odd length is returned.
  */

@@ -1,5 +1,5 @@
 /**
- * Phase data and vertical balance (domain.md §5). For a closed edge e: v → w,
+ * Phase data and vertical balance (docs/theory.md §5). For a closed edge e: v → w,
  *   φ_e = ψ(w) − ψ(v) + k_e·α,   G(v) += K_e sin φ_e,   G(w) −= K_e sin φ_e.
  * Jacobian ∂G/∂ψ = −(graph Laplacian with weights K_e cos φ_e): symmetric, possibly indefinite,
  * constants in its kernel. ∂G/∂α_i adds ±K_e cos φ_e · k_{e,i}. Loops cancel exactly.

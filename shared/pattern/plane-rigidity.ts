@@ -19,7 +19,7 @@ import { balanceJacobian } from './balance'
 import { meanEdgeLength } from './geometry'
 import type { Lattice, PatternModel } from './model'
 import { sparseRigidity } from './rigidity-sparse'
-import { tripletsToDense } from './spectrum'
+import { tripletsToDense } from '../linalg/dense'
 
 /** The published plane rigidity numbers. */
 export interface PlaneRigidityResult {

@@ -28,6 +28,7 @@ import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
 import { SparseSolver, type Factorization } from '../linalg/solver'
 import type { Inertia } from '../linalg/ldlt'
 import { TripletBuilder, type Triplets } from '../linalg/triplets'
+import { dot } from '../linalg/vectors'
 
 /** Result of {@link sparseRigidity}; lengths not yet multiplied by ℓ̄. */
 export interface SparseRigidityRaw {
@@ -55,12 +56,6 @@ function orthonormalise(t: Float64Array[]): Float64Array[] {
     if (n > 1e-12 * Math.sqrt(dot(v, v))) { for (let i = 0; i < w.length; i++) w[i]! /= n; q.push(w) }
   }
   return q
-}
-
-function dot(a: Float64Array, b: Float64Array): number {
-  let s = 0
-  for (let i = 0; i < a.length; i++) s += a[i]! * b[i]!
-  return s
 }
 
 function project(q: Float64Array[], x: Float64Array): void {

@@ -1,5 +1,5 @@
 /**
- * Rigidity of a drawing (domain.md §4). The trivial kernel of J = ∂B/∂p is removed by
+ * Rigidity of a drawing (docs/theory.md §4). The trivial kernel of J = ∂B/∂p is removed by
  * restricting J to the orthogonal complement of
  *   torus: the two translations;
  *   plane: the two translations and the dilation p ↦ p (B only sees directions).
@@ -10,7 +10,8 @@
 import type { Lattice, PatternModel } from './model'
 import { balanceJacobian } from './balance'
 import { meanEdgeLength } from './geometry'
-import { inertiaOf, reducedSpectrum, type Inertia } from './spectrum'
+import type { Inertia } from '../linalg/ldlt'
+import { inertiaOf, reducedSpectrum } from './spectrum'
 import { pinnedCoordinates, sparseRigidity } from './rigidity-sparse'
 
 /** [dx, dy] per vertex from an interleaved vector. */

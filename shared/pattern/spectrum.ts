@@ -6,15 +6,10 @@
  * values are |λ|, so σ_min = min |λ| and the inertia is read from the signs of λ.
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix'
+import { tripletsToDense } from '../linalg/dense'
+import type { Inertia } from '../linalg/ldlt'
 import type { Triplets } from '../linalg/triplets'
-import { norm2 } from './vector'
-
-/** Counts of negative, zero and positive eigenvalues. */
-export interface Inertia {
-  negative: number
-  zero: number
-  positive: number
-}
+import { norm2 } from '../linalg/vectors'
 
 /** Spectrum of the reduced matrix. */
 export interface ReducedSpectrum {
@@ -26,15 +21,6 @@ export interface ReducedSpectrum {
   sigmaMin: number
   /** Unit vector in the full space (Q times the eigenvector of min |λ|); empty when dimension 0. */
   weakestMode: number[]
-}
-
-/** Dense copy of triplets (duplicates summed). */
-export function tripletsToDense(t: Triplets): Matrix {
-  const a = Matrix.zeros(t.nRows, t.nCols)
-  for (let i = 0; i < t.count; i++) {
-    a.set(t.rows[i]!, t.cols[i]!, a.get(t.rows[i]!, t.cols[i]!) + t.values[i]!)
-  }
-  return a
 }
 
 /**

@@ -21,8 +21,8 @@ const csvCell = (v: unknown): string => {
   return /[",\n#]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s
 }
 
-/** Sorted diagnostic keys over all points. */
-export function diagnosticKeys(points: StoredRunPoint[]): string[] {
+/** Sorted diagnostic keys over all points (stored points and view points alike). */
+export function diagnosticKeys(points: readonly { diagnostics: Record<string, number> }[]): string[] {
   const keys = new Set<string>()
   for (const p of points) for (const k of Object.keys(p.diagnostics)) keys.add(k)
   return [...keys].sort()

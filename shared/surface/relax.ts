@@ -59,7 +59,7 @@ export interface RelaxResult {
 /** Runs the relaxation step by step on `mesh` (positions change in place); yields every step, the last one included. */
 export function* relaxSteps(mesh: PeriodicMesh, input: RelaxSettingsInput = {}): Generator<RelaxProgress, RelaxResult, void> {
   const o = parseRelaxSettings(input)
-  const V = mesh.positions.length / 3, F = mesh.triangles.length / 3
+  const V = mesh.positions.length / 3
   const free = new Int32Array(V).fill(-1)
   let n = 0
   const anyFixed = mesh.fixed.some(x => x === 1)
@@ -195,7 +195,7 @@ export function meanEdgeLength(mesh: PeriodicMesh): number {
 }
 
 /** Runs {@link relaxSteps} to the end; `onStep` may return false to stop (reported as cancelled). */
-export function relaxMesh(mesh: PeriodicMesh, input: RelaxSettingsInput = {}, onStep?: (p: RelaxProgress) => boolean | void): RelaxResult {
+export function relaxMesh(mesh: PeriodicMesh, input: RelaxSettingsInput = {}, onStep?: (p: RelaxProgress) => unknown): RelaxResult {
   const initialArea = meshArea(mesh)
   const history: RelaxProgress[] = []
   const gen = relaxSteps(mesh, input)

@@ -67,12 +67,11 @@ export function analyzeTopology(m: PeriodicMesh): MeshTopology {
   const F = m.triangles.length / 3, V = m.positions.length / 3
   const uses = edgeUses(m)
   const neighbours: { tri: number, same: boolean }[][] = Array.from({ length: F }, () => [])
-  let boundaryEdges = 0, nonManifold = 0
+  let nonManifold = 0
   const parent = new Int32Array(V).map((_, i) => i)
   const find = (x: number): number => { while (parent[x] !== x) { parent[x] = parent[parent[x]!]!; x = parent[x]! } return x }
   for (const [key, list] of uses) {
     if (list.length === 1) {
-      boundaryEdges++
       const [a, b] = key.split(',').map(Number)
       parent[find(a!)] = find(b!)
     }

@@ -1,5 +1,5 @@
 /**
- * Payloads of the run routes (issue 7): creating a run, appending batches of points, finishing,
+ * Payloads of the run routes: creating a run, appending batches of points, finishing,
  * renaming, listing with filters, importing an exported run and comparing runs. One schema per
  * payload, used by the routes and the forms.
  */
@@ -102,10 +102,13 @@ export const runListQuerySchema = z.object({
 })
 export type RunListQuery = z.input<typeof runListQuerySchema>
 
+/** Largest page of regular points one GET /api/runs/[runId]/points answers. */
+export const MAX_POINTS_PER_PAGE = 2000
+
 /** GET /api/runs/[runId]/points query: a page of regular points. */
 export const runPointsQuerySchema = z.object({
   offset: z.coerce.number().int().min(0).default(0),
-  limit: z.coerce.number().int().min(1).max(2000).default(500),
+  limit: z.coerce.number().int().min(1).max(MAX_POINTS_PER_PAGE).default(500),
 })
 
 /** GET /api/compare?runs=1,2,3 */

@@ -62,7 +62,7 @@ describe('pattern workbench', () => {
 
     // four edges from the first tower to the second and three of its copies (the copy sets the shift)
     await page.click('[data-testid=tool-edge]')
-    for (const [k1, k2] of [[0, 0], [-1, 0], [0, -1], [-1, -1]]) await dragWorld(page, [0.2, 0.25], [0.6 + k1, 0.55 + k2])
+    for (const [k1, k2] of [[0, 0], [-1, 0], [0, -1], [-1, -1]] as const) await dragWorld(page, [0.2, 0.25], [0.6 + k1, 0.55 + k2])
     expect(await page.locator('[data-testid=edge]').count()).toBe(4)
 
     const runsBefore = await runsOf(page)

@@ -66,7 +66,7 @@ describe('changing roles', () => {
 
   it('lets the owner promote, demote and remove, and logs it', async () => {
     expect((await owner.json('PATCH', `/api/projects/${projectId}/members/${viewerId}`, { role: 'editor' })).status).toBe(200)
-    let members = (await owner.json('GET', `/api/projects/${projectId}/members`)).body as Array<{ userId: number, role: string }>
+    const members = (await owner.json('GET', `/api/projects/${projectId}/members`)).body as Array<{ userId: number, role: string }>
     expect(members.find(m => m.userId === viewerId)?.role).toBe('editor')
     expect((await owner.json('PATCH', `/api/projects/${projectId}/members/${viewerId}`, { role: 'viewer' })).status).toBe(200)
     expect((await owner.json('PATCH', `/api/projects/${projectId}/members/${viewerId}`, { role: 'boss' })).status).toBe(400)

@@ -10,7 +10,8 @@ export default defineEventHandler(async (event) => {
   if (!u || !(await verifyPassword(u.passwordHash, currentPassword))) {
     throw httpError(400, 'bad_current_password', 'The current password is not right.')
   }
-  await db.update(tables.users).set({ passwordHash: await hashPassword(newPassword) }).where(eq(tables.users.id, user.id))
+  await db.update(tables.users).set({ passwordHash: await hashPassword(newPassword) }).where(eq(tables.users.id,
+    user.id))
   await endSessionsOf(user.id, event.context.sessionRowId as number | undefined)
   return { ok: true }
 })

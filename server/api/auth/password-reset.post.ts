@@ -5,7 +5,8 @@ import { enqueueMail } from '~~/server/mail/outbox'
 import { linkLifetimes, mailSettings } from '~~/server/mail/config'
 
 /** The one answer, whether or not the address has an account (existence is not revealed). */
-const ANSWER = { ok: true, message: 'If an account exists for this address, we have sent it a link to choose a new password.' }
+const ANSWER = { ok: true,
+  message: 'If an account exists for this address, we have sent it a link to choose a new password.' }
 
 /** Ask for a password-reset link by e-mail. Limited per account and per address, apart from sign-in failures. */
 export default defineEventHandler(async (event) => {
@@ -17,9 +18,11 @@ export default defineEventHandler(async (event) => {
   if (user) {
     const token = newSecret()
     const { resetMinutes } = linkLifetimes()
-    await useDb().insert(tables.passwordResets).values({ userId: user.id, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + resetMinutes * 60_000) })
+    await useDb().insert(tables.passwordResets).values({ userId: user.id, tokenHash: hashToken(token),
+      expiresAt: new Date(Date.now() + resetMinutes * 60_000) })
     const url = `${mailSettings().baseUrl}/reset-password/${token}`
-    await enqueueMail({ to: user.email, kind: 'password-reset', secretUrl: url, ...passwordResetMail({ name: user.name, url, minutes: resetMinutes }) })
+    await enqueueMail({ to: user.email, kind: 'password-reset', secretUrl: url,
+      ...passwordResetMail({ name: user.name, url, minutes: resetMinutes }) })
   }
   return ANSWER
 })

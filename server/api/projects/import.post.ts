@@ -10,12 +10,16 @@ import type { ArchiveImportResult } from '#shared/types/archive'
 export default defineEventHandler(async (event): Promise<ArchiveImportResult> => {
   const user = await requireUser(event)
   const type = getRequestHeader(event, 'content-type') ?? ''
-  if (!/^application\/(zip|x-zip-compressed|octet-stream)\b/.test(type)) throw httpError(415, 'archive_content_type', 'Send the archive as the request body with Content-Type: application/zip.')
+  if (!/^application\/(zip|x-zip-compressed|octet-stream)\b/.test(type)) throw httpError(415, 'archive_content_type',
+    'Send the archive as the request body with Content-Type: application/zip.')
   const limits = archiveLimits()
-  // a refusal before the whole body was read closes the connection, so the client does not reuse a socket with unread bytes
-  const unread = (e: unknown) => { if (!event.node.req.readableEnded) setResponseHeader(event, 'connection', 'close'); return e }
+  // a refusal before the whole body was read closes the connection, so the client does not reuse a
+  // socket with unread bytes
+  const unread = (e: unknown) => { if (!event.node.req.readableEnded) setResponseHeader(event, 'connection',
+    'close'); return e }
   const declared = Number(getRequestHeader(event, 'content-length') ?? 0)
-  if (declared > limits.maxUploadBytes) throw unread(archiveRefusal(413, 'archive_too_large', `The upload is larger than ${limits.maxUploadBytes} bytes (runtime config archiveImport.maxMb).`))
+  if (declared > limits.maxUploadBytes) throw unread(archiveRefusal(413, 'archive_too_large',
+    `The upload is larger than ${limits.maxUploadBytes} bytes (runtime config archiveImport.maxMb).`))
   const entries = await readArchiveStream(event.node.req, limits).catch((e) => { throw unread(e) })
   const parsed = parseArchive(entries)
   const verdicts = verifyArchive(parsed)

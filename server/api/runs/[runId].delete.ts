@@ -6,7 +6,8 @@ export default defineEventHandler(async (event) => {
   const { runId } = await getValidatedRouterParams(event, runRouteParamsSchema.parse)
   const { run, user } = await requireRunAccess(event, runId, 'editor')
   await useDb().delete(tables.runs).where(eq(tables.runs.id, runId))
-  await logActivity({ projectId: run.projectId, actorId: user.id, verb: 'deleted', objectType: 'run', objectId: runId, data: { name: run.name } })
+  await logActivity({ projectId: run.projectId, actorId: user.id, verb: 'deleted', objectType: 'run', objectId: runId,
+    data: { name: run.name } })
   setResponseStatus(event, 204)
   return null
 })

@@ -6,6 +6,7 @@ export default defineEventHandler(async (event): Promise<RunDetail> => {
   const { runId } = await getValidatedRouterParams(event, runRouteParamsSchema.parse)
   const { run, role } = await requireRunAccess(event, runId, 'viewer')
   const summary = await loadRunSummary(runId)
-  const version = await useDb().query.graphVersions.findFirst({ where: eq(tables.graphVersions.id, run.graphVersionId) })
+  const version = await useDb().query.graphVersions.findFirst({ where: eq(tables.graphVersions.id,
+    run.graphVersionId) })
   return { ...summary!, settings: JSON.parse(run.settings), document: JSON.parse(version!.document), role }
 })

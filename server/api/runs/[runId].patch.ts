@@ -7,6 +7,7 @@ export default defineEventHandler(async (event) => {
   const { run, user } = await requireRunAccess(event, runId, 'editor')
   const { name } = await readValidatedBody(event, runRenameSchema.parse)
   await useDb().update(tables.runs).set({ name }).where(eq(tables.runs.id, runId))
-  await logActivity({ projectId: run.projectId, actorId: user.id, verb: 'renamed', objectType: 'run', objectId: runId, data: { from: run.name, to: name } })
+  await logActivity({ projectId: run.projectId, actorId: user.id, verb: 'renamed', objectType: 'run', objectId: runId,
+    data: { from: run.name, to: name } })
   return await loadRunSummary(runId)
 })

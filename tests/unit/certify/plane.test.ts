@@ -15,7 +15,7 @@ import { certifyHorizontal } from '../../../shared/certify/pattern'
 import { choosePlaneReduction, planeSystem } from '../../../shared/certify/plane'
 import { balanceJacobian } from '../../../shared/pattern/balance'
 import { compilePattern } from '../../../shared/pattern/model'
-import { tripletsToDense } from '../../../shared/pattern/spectrum'
+import { tripletsToDense } from '../../../shared/linalg/dense'
 import { parsePatternDocument } from '../../../shared/types/pattern'
 import { EQUILATERAL, oneTower, planeTriangle, squareOfLines, twoTowers } from '../pattern/published-patterns'
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { createContinuation, restartFrom, runContinuation, validateContinuationOptions, type ContinuationProblem } from '../../../shared/continuation'
+import { createContinuation, restartFrom, runContinuation, resolveContinuationOptions, type ContinuationProblem } from '../../../shared/continuation'
 import { TripletBuilder } from '../../../shared/linalg/triplets'
 import { bratu, scalarProblem } from './problems'
 
@@ -137,9 +137,9 @@ describe('step-wise driver and data', () => {
   })
 
   it('options are validated with clear messages', () => {
-    expect(() => validateContinuationOptions({ minStep: 1, initialStep: 0.1 })).toThrow(/minStep ≤ initialStep/)
-    expect(() => validateContinuationOptions({ direction: 'up' as 'increase' })).toThrow(/direction/)
-    expect(() => validateContinuationOptions({ locateTolerance: 0 })).toThrow(/locateTolerance/)
-    expect(validateContinuationOptions().locateTolerance).toBe(1e-9)
+    expect(() => resolveContinuationOptions({ minStep: 1, initialStep: 0.1 })).toThrow(/minStep ≤ initialStep/)
+    expect(() => resolveContinuationOptions({ direction: 'up' as 'increase' })).toThrow(/direction/)
+    expect(() => resolveContinuationOptions({ locateTolerance: 0 })).toThrow(/locateTolerance/)
+    expect(resolveContinuationOptions().locateTolerance).toBe(1e-9)
   })
 })

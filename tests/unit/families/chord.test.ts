@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { runContinuation } from '../../../shared/continuation'
-import { validateContinuationOptions } from '../../../shared/continuation/options'
+import { resolveContinuationOptions } from '../../../shared/continuation/options'
 import { FamilyRunner } from '../../../shared/families'
 import { bratu, bratuFoldByShooting } from '../continuation/problems'
 import { ring } from './fixtures'
@@ -35,7 +35,7 @@ describe('chord Newton', () => {
   })
 
   it('is validated as a boolean', () => {
-    expect(validateContinuationOptions({}).chordNewton).toBe(false)
-    expect(() => validateContinuationOptions({ chordNewton: 'yes' as unknown as boolean })).toThrow(/chordNewton/)
+    expect(resolveContinuationOptions({}).chordNewton).toBe(false)
+    expect(() => resolveContinuationOptions({ chordNewton: 'yes' as unknown as boolean })).toThrow(/chordNewton/)
   })
 })

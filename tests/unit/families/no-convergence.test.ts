@@ -8,13 +8,13 @@ import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
 import { promisify } from 'node:util'
 import { afterAll, describe, expect, it, vi } from 'vitest'
+import { FamilyRunner } from '../../../shared/families'
+import { buildRunCsv, buildRunJson } from '../../../shared/runs/export'
+import { fermatPair } from './fixtures'
 
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
 vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
-import { FamilyRunner } from '../../../shared/families'
-import { buildRunCsv, buildRunJson } from '../../../shared/runs/export'
-import { fermatPair } from './fixtures'
 
 // Collapse tolerance 1e-10 of the mean length: the shear a of the Fermat pair (collapse at
 // a = −1/√3, Fermat–Torricelli, C. Kimberling, Encyclopedia of Triangle Centers, X(13)) cannot be

@@ -3,14 +3,14 @@
  * (checked against the settings schema) and the setup form's field.
  */
 import { describe, expect, it, vi } from 'vitest'
-
-vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 import { findPatternExample } from '../../../shared/examples'
 import { FAMILY_OPTION_NAMES, FamilyRunner } from '../../../shared/families'
 import { analyzePattern } from '../../../shared/pattern/analyze'
 import { FamilySettingsSchema, parseFamilySettings, type FamilySettingsInput } from '../../../shared/types/family'
 import { ALLOW_SINGULAR_LABEL, defaultSetupForm, formToSettings, startRefusal } from '../../../app/utils/family/setup'
 import { fermatPair } from './fixtures'
+
+vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 
 /** True when the dotted key is a field of the family settings schema. */
 function isSettingsKey(key: string): boolean {

@@ -6,14 +6,6 @@
  * lattice is orthogonal at s = 0.2 exactly: the wall (derived).
  */
 import { describe, expect, it, vi } from 'vitest'
-
-// app/utils import the core through Nuxt's #shared alias; point it at the same files here
-vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
-vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
-vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
-vi.mock('#shared/families/walls', () => import('../../../shared/families/walls'))
-vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
-vi.mock('#shared/pattern/balance-solve', () => import('../../../shared/pattern/balance-solve'))
 import { FamilyRunner } from '../../../shared/families'
 import { conditionEvents, describeWall } from '../../../shared/families/walls'
 import { compilePattern } from '../../../shared/pattern/model'
@@ -23,6 +15,14 @@ import { meeks, twoTowers } from '../pattern/published-patterns'
 import { wallAt } from '../../../app/utils/family/wall'
 import { parseFamilySettings } from '../../../shared/types/family'
 import { parsePatternDocument } from '../../../shared/types/pattern'
+
+// app/utils import the core through Nuxt's #shared alias; point it at the same files here
+vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
+vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
+vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
+vi.mock('#shared/families/walls', () => import('../../../shared/families/walls'))
+vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
+vi.mock('#shared/pattern/balance-solve', () => import('../../../shared/pattern/balance-solve'))
 
 function runToEnd(doc: PatternDocument, settings: FamilySettingsInput) {
   const r = new FamilyRunner(doc, settings)

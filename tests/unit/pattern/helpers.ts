@@ -1,7 +1,7 @@
 /** Builders and numeric helpers for the pattern tests. */
 import { parsePatternDocument, type PatternDocument } from '../../../shared/types/pattern'
 import { compilePattern, type PatternModel } from '../../../shared/pattern/model'
-import { tripletsToDense } from '../../../shared/pattern/spectrum'
+import { tripletsToDense } from '../../../shared/linalg/dense'
 import type { Triplets } from '../../../shared/linalg/triplets'
 
 export { seeded } from '../linalg/random'

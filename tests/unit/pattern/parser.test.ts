@@ -8,6 +8,10 @@ import { describe, expect, it } from 'vitest'
 import { parsePatternDocument, PatternParseError, safeParsePatternDocument, type PatternDocument } from '../../../shared/types/pattern'
 import { PATTERN_EXAMPLES } from '../../../shared/examples'
 
+/** A document opened up for deliberate corruption (any field may be replaced by anything). */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- malformed documents on purpose
+type Loose = Record<string, any>
+
 const base = (): PatternDocument => structuredClone(PATTERN_EXAMPLES.find(e => e.slug === 'square-pair')!.document)
 
 function messages(input: unknown): string[] {
@@ -39,7 +43,7 @@ describe('parsePatternDocument', () => {
   })
 
   it('reports duplicates, loops without shift, wings in the torus, bad lattices and rotations', () => {
-    const d = base() as Record<string, any>
+    const d = base() as Loose
     d.vertices.push({ id: 'a', position: [0.1, 0.1] })
     d.edges.push({ id: 'loop', from: 'a', to: 'a' })
     d.wings = [{ id: 'w', vertex: 'a', direction: [1, 0] }]
@@ -55,7 +59,7 @@ describe('parsePatternDocument', () => {
   })
 
   it('reports shape errors with their path', () => {
-    const d = base() as Record<string, any>
+    const d = base() as Loose
     d.edges[1].shift = [0.5, 0]
     d.vertices[0].position = [0]
     d.space = 'sphere'
@@ -66,7 +70,7 @@ describe('parsePatternDocument', () => {
   })
 
   it('rejects shifts and lattices in the plane', () => {
-    const d = structuredClone(PATTERN_EXAMPLES.find(e => e.slug === 'plane-bridge')!.document) as Record<string, any>
+    const d = structuredClone(PATTERN_EXAMPLES.find(e => e.slug === 'plane-bridge')!.document) as Loose
     d.edges[0].shift = [1, 0]
     d.lattice = { w1: [1, 0], w2: [0, 1] }
     expect(messages(d)).toEqual(['lattice: a plane pattern has no lattice', 'edges[0].shift: a plane pattern has no lattice shifts'])
@@ -79,7 +83,7 @@ function corrupt(value: unknown, choices: number[], replacement: unknown): unkno
   const keys = Object.keys(value as object)
   if (keys.length === 0) return replacement
   const key = keys[choices[0]! % keys.length]!
-  const copy: any = Array.isArray(value) ? [...value] : { ...(value as object) }
+  const copy: Loose = Array.isArray(value) ? [...value] : { ...(value as object) }
   copy[key] = corrupt(copy[key], choices.slice(1), replacement)
   return copy
 }

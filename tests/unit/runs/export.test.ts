@@ -1,13 +1,5 @@
 /** Run exports and diagram builders: headers with units, caution, version, settings, SVG for papers. */
 import { describe, expect, it, vi } from 'vitest'
-
-// app/utils import the core through Nuxt's #shared alias; point it at the same files here
-vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
-vi.mock('#shared/runs/units', () => import('../../../shared/runs/units'))
-vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
-vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
-vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
-vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
 import { FamilyRunner } from '../../../shared/families/runner'
 import { findPatternExample } from '../../../shared/examples'
 import { RESULT_CAUTION, RunPointSchema, RunSpecialPointSchema, type StoredRunPoint } from '../../../shared/types/runs'
@@ -17,6 +9,14 @@ import { branchDiagramOption } from '../../../app/utils/family/chart'
 import { diagramSvg } from '../../../app/utils/family/chart-export'
 import { documentAtPoint } from '../../../app/utils/family/point-doc'
 import { parseFamilySettings } from '../../../shared/types/family'
+
+// app/utils import the core through Nuxt's #shared alias; point it at the same files here
+vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
+vi.mock('#shared/runs/units', () => import('../../../shared/runs/units'))
+vi.mock('#shared/types/runs', () => import('../../../shared/types/runs'))
+vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
+vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
+vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
 
 const fermat = findPatternExample('fermat-pair')!
 const settings = parseFamilySettings({ path: { kind: 'shear' }, to: -2 })

@@ -5,17 +5,17 @@
  * one equation holds the shortest edges e2, e4 and phase rigidity is 2|cos φ4| ≠ 0 away from π/2.
  */
 import { describe, expect, it, vi } from 'vitest'
+import { FamilyRunner } from '../../../shared/families'
+import { analyzePattern } from '../../../shared/pattern/analyze'
+import { parseFamilySettings } from '../../../shared/types/family'
+import { documentAtPoint } from '../../../app/utils/family/point-doc'
+import { meeks } from '../pattern/published-patterns'
 
 // app/utils import the core through Nuxt's #shared alias; point it at the same files here
 vi.mock('#shared/types/family', () => import('../../../shared/types/family'))
 vi.mock('#shared/families/lattice-paths', () => import('../../../shared/families/lattice-paths'))
 vi.mock('#shared/families/phase', () => import('../../../shared/families/phase'))
 vi.mock('#shared/pattern/model', () => import('../../../shared/pattern/model'))
-import { FamilyRunner } from '../../../shared/families'
-import { analyzePattern } from '../../../shared/pattern/analyze'
-import { parseFamilySettings } from '../../../shared/types/family'
-import { documentAtPoint } from '../../../app/utils/family/point-doc'
-import { meeks } from '../pattern/published-patterns'
 
 describe('documentAtPoint on a phase run', () => {
   it('sets ψ and α of the point: its vertical equations hold and the checklist is computed there', () => {

@@ -1,6 +1,6 @@
 /** Mail retry schedule: exponential backoff from the configured first delay. */
 import { describe, expect, it } from 'vitest'
-import { backoffMs } from '../../../server/mail/config'
+import { backoffMs } from '../../../server/mail/backoff'
 
 describe('backoffMs', () => {
   it('doubles the delay after each failed attempt (common practice, no source)', () => {

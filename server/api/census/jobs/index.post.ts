@@ -9,7 +9,8 @@ export default defineEventHandler(async (event) => {
   await assertNoActiveCensusJob()
   const job = await db.insert(tables.censusJobs).values({
     maxTowers: body.maxTowers, maxHalfEdges: body.maxHalfEdges, queue: censusUsesQueue() ? 'bullmq' : 'in-process',
-    options: JSON.stringify({ ...(body.lattice ? { lattice: body.lattice } : {}), searchTau: body.searchTau }), createdBy: user.id,
+    options: JSON.stringify({ ...(body.lattice ? { lattice: body.lattice } : {}),
+      searchTau: body.searchTau }), createdBy: user.id,
   }).returning().get()
   await launchCensusJob(job)
   setResponseStatus(event, 201)

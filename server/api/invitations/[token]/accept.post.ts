@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm'
+import { eq, sql } from 'drizzle-orm'
 import { invitationAcceptSchema, invitationSignUpSchema, tokenParamsSchema } from '#shared/types/team'
 
 /**
@@ -12,21 +12,36 @@ export default defineEventHandler(async (event) => {
   const body = await readValidatedBody(event, invitationAcceptSchema.parse)
   const session = await getUserSession(event)
   if (session.user && session.user.email !== invitation.email) {
-    throw httpError(403, 'wrong_account', `This invitation is for ${invitation.email}. Sign out, then open the link again.`)
+    throw httpError(403, 'wrong_account',
+      `This invitation is for ${invitation.email}. Sign out, then open the link again.`)
   }
   const db = useDb()
-  let user = session.user ?? await db.query.users.findFirst({ where: eq(tables.users.email, invitation.email), columns: { id: true, email: true, name: true, siteRole: true } })
+  let user = session.user ?? await db.query.users.findFirst({ where: eq(tables.users.email, invitation.email),
+    columns: { id: true, email: true, name: true, siteRole: true } })
   if (user && !session.user) await checkPassword(event, invitation.email, body.password ?? '')
   const signUp = user ? null : invitationSignUpSchema.safeParse(body)
   if (signUp && !signUp.success) throw httpError(400, 'invalid_sign_up', signUp.error.issues[0]!.message)
-  if (!(await claimInvitation(invitation.id))) throw httpError(410, 'invitation_used', 'This invitation has already been used.')
+  if (!(await claimInvitation(invitation.id))) throw httpError(410, 'invitation_used',
+    'This invitation has already been used.')
+  // a new account, its membership and the activity entry land together (one batch)
+  const u = tables.users
+  const passwordHash = signUp?.success ? await hashPassword(signUp.data.password) : ''
+  const userId = user ? user.id : sql<number>`(SELECT id FROM users WHERE email = ${invitation.email})` as unknown as number
+  const membership = db.insert(tables.memberships).values({ projectId: invitation.projectId, userId,
+    role: invitation.role }).onConflictDoNothing()
+  const joined = activityInsert({
+    projectId: invitation.projectId, actorId: userId, verb: 'joined', objectType: 'member', objectId: userId,
+    data: { role: invitation.role, invitationId: invitation.id },
+  })
   if (signUp?.success) {
-    const [created] = await db.insert(tables.users).values({ name: signUp.data.name, email: invitation.email, passwordHash: await hashPassword(signUp.data.password) })
-      .returning({ id: tables.users.id, email: tables.users.email, name: tables.users.name, siteRole: tables.users.siteRole })
+    const [[created]] = await db.batch([
+      db.insert(u).values({ name: signUp.data.name, email: invitation.email, passwordHash })
+        .returning({ id: u.id, email: u.email, name: u.name, siteRole: u.siteRole }),
+      membership, joined,
+    ])
     user = created!
   }
-  await db.insert(tables.memberships).values({ projectId: invitation.projectId, userId: user!.id, role: invitation.role }).onConflictDoNothing()
-  await logActivity({ projectId: invitation.projectId, actorId: user!.id, verb: 'joined', objectType: 'member', objectId: user!.id, data: { role: invitation.role, invitationId: invitation.id } })
+  else await db.batch([membership, joined])
   if (!session.user) await startSession(event, user!)
   return { projectId: invitation.projectId, role: invitation.role }
 })
@@ -35,7 +50,8 @@ export default defineEventHandler(async (event) => {
 async function checkPassword(event: Parameters<typeof clientAddress>[0], email: string, password: string) {
   const ip = clientAddress(event)
   await throttleSignIn(event, email, ip)
-  const u = await useDb().query.users.findFirst({ where: eq(tables.users.email, email), columns: { passwordHash: true } })
+  const u = await useDb().query.users.findFirst({ where: eq(tables.users.email, email),
+    columns: { passwordHash: true } })
   if (!u || !(await verifyPassword(u.passwordHash, password))) {
     await recordSignInFailure(email, ip)
     throw httpError(401, 'bad_credentials', 'Wrong password for this account.')

@@ -10,6 +10,7 @@ export default defineEventHandler(async (event) => {
     'content-disposition': `attachment; filename="${archiveFileName(id, project.name)}"`,
     'cache-control': 'no-store',
   })
-  const chunks = projectArchiveChunks({ client: useDb().$client, projectId: id, appVersion: useRuntimeConfig().public.appVersion, schema: serverSchemaVersion() })
+  const chunks = projectArchiveChunks({ client: useDb().$client, projectId: id,
+    appVersion: useRuntimeConfig().public.appVersion, schema: serverSchemaVersion() })
   return sendStream(event, Readable.from(chunks))
 })

@@ -1,7 +1,10 @@
 import { certificateClaimsSchema } from '#shared/types/certificates'
 import { runRouteParamsSchema } from '#shared/types/runs'
 
-/** Claim interval certificates for saved points (and segments between them): the server re-proves each; 422 refuses a claim it cannot prove (nothing stored). */
+/**
+ * Claim interval certificates for saved points (and segments between them): the server re-proves
+ * each; 422 refuses a claim it cannot prove (nothing stored).
+ */
 export default defineEventHandler(async (event) => {
   const { runId } = await getValidatedRouterParams(event, runRouteParamsSchema.parse)
   const { run } = await requireRunAccess(event, runId, 'editor')

@@ -10,6 +10,7 @@ export default defineEventHandler(async (event) => {
   const { run, user } = await requireRunAccess(event, runId, 'editor')
   if (run.status === 'running') throw httpError(409, 'run_running', 'Finish the run before re-verifying it.')
   await verifyStoredRun(runId, true)
-  await logActivity({ projectId: run.projectId, actorId: user.id, verb: 're-verified', objectType: 'run', objectId: runId })
+  await logActivity({ projectId: run.projectId, actorId: user.id, verb: 're-verified', objectType: 'run',
+    objectId: runId })
   return await loadRunSummary(runId)
 })

@@ -4,7 +4,8 @@ import { censusJobParamsSchema } from '#shared/types/census'
 export default defineEventHandler(async (event) => {
   const { id } = await getValidatedRouterParams(event, censusJobParamsSchema.parse)
   const job = await requireCensusJob(event, id)
-  if (!['queued', 'running'].includes(job.status)) throw httpError(409, 'census_not_running', `The job is ${job.status}; only a queued or running job can be cancelled.`)
+  if (!['queued', 'running'].includes(job.status)) throw httpError(409, 'census_not_running',
+    `The job is ${job.status}; only a queued or running job can be cancelled.`)
   await cancelCensusJob(job)
   return { id, status: 'cancelling' }
 })

@@ -8,9 +8,11 @@ export default defineEventHandler(async (event): Promise<GraphListItem[]> => {
   await requireProjectRole(event, id, 'viewer')
   const { graphs: g, graphVersions: v } = tables
   const rows = await useDb()
-    .select({ id: g.id, name: g.name, description: g.description, version: g.latestVersion, summary: v.analysisSummary, updatedAt: g.updatedAt })
+    .select({ id: g.id, name: g.name, description: g.description, version: g.latestVersion, summary: v.analysisSummary,
+      updatedAt: g.updatedAt })
     .from(g).leftJoin(v, and(eq(v.graphId, g.id), eq(v.version, g.latestVersion)))
     .where(eq(g.projectId, id))
     .orderBy(desc(g.updatedAt), g.id)
-  return rows.map(r => ({ ...r, summary: r.summary ? JSON.parse(r.summary) : null, updatedAt: r.updatedAt.toISOString() }))
+  return rows.map(r => ({ ...r, summary: r.summary ? JSON.parse(r.summary) : null,
+    updatedAt: r.updatedAt.toISOString() }))
 })

@@ -9,6 +9,7 @@ export default defineEventHandler(async (event) => {
   const [row] = await useDb().update(i).set({ revokedAt: new Date() })
     .where(and(eq(i.id, invitationId), eq(i.projectId, id), isNull(i.acceptedAt), isNull(i.revokedAt))).returning()
   if (!row) throw httpError(404, 'invitation_not_found', 'No pending invitation with this id in this project.')
-  await logActivity({ projectId: id, actorId: user.id, verb: 'withdrew invitation', objectType: 'invitation', objectId: row.id, data: { email: row.email } })
+  await logActivity({ projectId: id, actorId: user.id, verb: 'withdrew invitation', objectType: 'invitation',
+    objectId: row.id, data: { email: row.email } })
   return { ok: true }
 })

@@ -14,11 +14,13 @@ export default defineEventHandler(async (event) => {
   const cells = result.rows.flatMap(r => r.cells)
   const [map] = await useDb().insert(tables.maps).values({
     projectId: id, graphVersionId: version.id, name: body.name, plane: body.settings.plane, settings: JSON.stringify(body.settings),
-    result: JSON.stringify({ result, curves: body.curves }), cellCount: cells.length, solvedCount: cells.filter(c => c.status === 'solved').length,
+    result: JSON.stringify({ result,
+      curves: body.curves }), cellCount: cells.length, solvedCount: cells.filter(c => c.status === 'solved').length,
     wallMs: body.wallMs ?? null, workers: body.workers ?? null, verification: check.verification, verificationReason: check.reason, verticalBalance: VERTICAL_BALANCE_DEFINITION,
     appVersion: useRuntimeConfig().public.appVersion, authorId: user.id,
   }).returning()
-  await logActivity({ projectId: id, actorId: user.id, verb: 'saved', objectType: 'map', objectId: map!.id, data: { name: body.name, plane: body.settings.plane } })
+  await logActivity({ projectId: id, actorId: user.id, verb: 'saved', objectType: 'map', objectId: map!.id,
+    data: { name: body.name, plane: body.settings.plane } })
   setResponseStatus(event, 201)
   return (await listMaps(id)).find(m => m.id === map!.id)
 })

@@ -7,6 +7,7 @@ export default defineEventHandler(async (event) => {
   const member = await findMembership(id, userId)
   if (member.role === 'owner') await assertAnotherOwner(id)
   await deleteMembership(member.id)
-  await logActivity({ projectId: id, actorId: user.id, verb: 'removed', objectType: 'member', objectId: userId, data: { role: member.role } })
+  await logActivity({ projectId: id, actorId: user.id, verb: 'removed', objectType: 'member', objectId: userId,
+    data: { role: member.role } })
   return { ok: true }
 })

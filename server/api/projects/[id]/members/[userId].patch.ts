@@ -8,6 +8,7 @@ export default defineEventHandler(async (event) => {
   const member = await findMembership(id, userId)
   if (member.role === 'owner' && role !== 'owner') await assertAnotherOwner(id)
   await updateMembership(member.id, { role })
-  await logActivity({ projectId: id, actorId: user.id, verb: 'changed role', objectType: 'member', objectId: userId, data: { from: member.role, to: role } })
+  await logActivity({ projectId: id, actorId: user.id, verb: 'changed role', objectType: 'member', objectId: userId,
+    data: { from: member.role, to: role } })
   return { userId, role }
 })

@@ -18,13 +18,16 @@ export default defineEventHandler(async (event) => {
   }).returning()
   let run = row!
   for (let i = 0; i < Math.max(file.points.length, 1); i += MAX_POINTS_PER_BATCH) {
-    const res = await appendBatch(run, { points: file.points.slice(i, i + MAX_POINTS_PER_BATCH), specialPoints: i === 0 ? file.specialPoints : [] })
+    const res = await appendBatch(run,
+      { points: file.points.slice(i, i + MAX_POINTS_PER_BATCH), specialPoints: i === 0 ? file.specialPoints : [] })
     if (!res.accepted) break
     run = (await useDb().query.runs.findFirst({ where: eq(tables.runs.id, run.id) }))!
   }
-  await useDb().update(tables.runs).set({ status: file.status === 'running' || !file.status ? 'complete' : file.status, finishReason: file.finishReason ?? null }).where(eq(tables.runs.id, run.id))
+  await useDb().update(tables.runs).set({ status: file.status === 'running' || !file.status ? 'complete' : file.status,
+    finishReason: file.finishReason ?? null }).where(eq(tables.runs.id, run.id))
   await verifyStoredRun(run.id)
-  await logActivity({ projectId: id, actorId: user.id, verb: 'imported', objectType: 'run', objectId: run.id, data: { name: run.name } })
+  await logActivity({ projectId: id, actorId: user.id, verb: 'imported', objectType: 'run', objectId: run.id,
+    data: { name: run.name } })
   setResponseStatus(event, 201)
   return await loadRunSummary(run.id)
 })

@@ -17,7 +17,8 @@ export default defineEventHandler(async (event) => {
     settings: JSON.stringify(body.settings), appVersion: useRuntimeConfig().public.appVersion, authorId: user.id,
     parentRunId: body.parentRunId ?? null, restartPointIndex: body.restartPointIndex ?? null,
   }).returning()
-  await logActivity({ projectId: id, actorId: user.id, verb: 'started', objectType: 'run', objectId: run!.id, data: { name: body.name, kind: body.settings.path.kind } })
+  await logActivity({ projectId: id, actorId: user.id, verb: 'started', objectType: 'run', objectId: run!.id,
+    data: { name: body.name, kind: body.settings.path.kind } })
   setResponseStatus(event, 201)
   return await loadRunSummary(run!.id)
 })

@@ -5,11 +5,12 @@ import { commentListQuerySchema, commentRunParamsSchema, type CommentItem } from
 export default defineEventHandler(async (event): Promise<CommentItem[]> => {
   const { runId } = await getValidatedRouterParams(event, commentRunParamsSchema.parse)
   const { pointIndex } = await getValidatedQuery(event, commentListQuerySchema.parse)
-  const { user, role } = await requireRunForComments(event, runId, 'viewer')
+  const { user, role } = await requireRunAccess(event, runId, 'viewer')
   const { comments: c, users: u } = tables
   const where: SQL[] = [eq(c.runId, runId)]
   if (pointIndex !== undefined) where.push(eq(c.pointIndex, pointIndex))
   const rows = await useDb().select({ c, authorName: u.name }).from(c).leftJoin(u, eq(u.id, c.authorId))
     .where(and(...where)).orderBy(asc(c.createdAt), asc(c.id))
-  return rows.map(r => toCommentItem(r.c, r.c.authorId && r.authorName ? { id: r.c.authorId, name: r.authorName } : null, user.id, role))
+  return rows.map(r => toCommentItem(r.c,
+    r.c.authorId && r.authorName ? { id: r.c.authorId, name: r.authorName } : null, user.id, role))
 })

@@ -7,7 +7,8 @@ export default defineEventHandler(async (event) => {
   assertBodySize(event)
   const body = await readValidatedBody(event, graphSaveSchema.parse)
   const document = checkedDocument(body.document)
-  const version = await appendVersion({ projectId: id, graphId, authorId: user.id, document, message: body.message, verb: 'saved' })
+  const version = await appendVersion({ projectId: id, graphId, authorId: user.id, document, message: body.message,
+    verb: 'saved' })
   setResponseStatus(event, 201)
   return { id: graphId, version }
 })

@@ -1,4 +1,7 @@
-/** Small dense-vector helpers on Float64Array (no allocation unless stated). */
+/**
+ * Small dense-vector helpers on arrays of any length (no allocation unless stated). Loop-based:
+ * spreading a long array into Math.hypot or Math.min overflows the call stack for large patterns.
+ */
 
 /** Σ a_i b_i. */
 export function dot(a: ArrayLike<number>, b: ArrayLike<number>): number {
@@ -9,6 +12,20 @@ export function dot(a: ArrayLike<number>, b: ArrayLike<number>): number {
 
 /** Euclidean norm. */
 export function norm2(a: ArrayLike<number>): number { return Math.sqrt(dot(a, a)) }
+
+/** Smallest entry (Infinity when empty). */
+export function minOf(v: ArrayLike<number>): number {
+  let m = Infinity
+  for (let i = 0; i < v.length; i++) if (v[i]! < m) m = v[i]!
+  return m
+}
+
+/** Largest entry (−Infinity when empty). */
+export function maxOf(v: ArrayLike<number>): number {
+  let m = -Infinity
+  for (let i = 0; i < v.length; i++) if (v[i]! > m) m = v[i]!
+  return m
+}
 
 /** max |a_i|. */
 export function normInf(a: ArrayLike<number>): number {
