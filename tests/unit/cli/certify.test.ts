@@ -4,25 +4,15 @@
  * does not (exit 1, "not rigid"); a run export certifies every point given its pattern, and
  * without the pattern is bad usage (exit 2).
  */
-import { execFile } from 'node:child_process'
 import { mkdtemp, writeFile } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
-import { join, resolve } from 'node:path'
-import { promisify } from 'node:util'
+import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
+import { runCli } from '../../support/cli'
 import { FamilyRunner } from '../../../shared/families/runner'
 import { findPatternExample } from '../../../shared/examples'
 
-const root = resolve(__dirname, '../../..')
-const run = async (...args: string[]) => {
-  try {
-    const r = await promisify(execFile)('node', ['--import', 'tsx', 'cli/wingfold.ts', ...args], { cwd: root })
-    return { code: 0, stdout: r.stdout, stderr: r.stderr }
-  } catch (e) {
-    const err = e as { code: number, stdout: string, stderr: string }
-    return { code: err.code, stdout: err.stdout, stderr: err.stderr }
-  }
-}
+const run = runCli
 const example = (slug: string) => `shared/examples/${slug}.wfp.json`
 
 describe('wingfold certify', () => {

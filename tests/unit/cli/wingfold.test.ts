@@ -2,25 +2,16 @@
  * The command line as a user runs it (node + tsx, as `npm run wingfold` does): exit codes 0 / 1 / 2,
  * the JSON report, the balance command writing a balanced document, and the committed JSON Schema.
  */
-import { execFile } from 'node:child_process'
 import { mkdtemp, readFile, writeFile } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join, resolve } from 'node:path'
-import { promisify } from 'node:util'
 import { describe, expect, it } from 'vitest'
+import { runCli } from '../../support/cli'
 import { patternJsonSchemaText } from '../../../cli/commands/schema'
 import { parsePatternDocument } from '../../../shared/types/pattern'
 
 const root = resolve(__dirname, '../../..')
-const run = async (...args: string[]) => {
-  try {
-    const r = await promisify(execFile)('node', ['--import', 'tsx', 'cli/wingfold.ts', ...args], { cwd: root })
-    return { code: 0, stdout: r.stdout, stderr: r.stderr }
-  } catch (e) {
-    const err = e as { code: number, stdout: string, stderr: string }
-    return { code: err.code, stdout: err.stdout, stderr: err.stderr }
-  }
-}
+const run = runCli
 const example = (slug: string) => `shared/examples/${slug}.wfp.json`
 
 describe('wingfold check', () => {
